@@ -1,0 +1,104 @@
+/** createApp: the Express application (no listen), wired from config and a Sequelize connection. */
+import { randomUUID } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import connectSessionSequelize from 'connect-session-sequelize';
+import express, { Router } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import type { Sequelize } from 'sequelize';
+import { auditRoutes } from './audit/audit.routes';
+import { authRoutes } from './auth/auth.routes';
+import { createPassport } from './auth/passport';
+import type { Config } from './config';
+import { csrfProtection } from './http/csrf';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import { regionRoutes } from './regions/region.routes';
+import { stockRoutes } from './stocks/stock.routes';
+import { userRoutes } from './users/user.routes';
+
+const SequelizeStore = connectSessionSequelize(session.Store);
+
+export interface ApiMount {
+  base: string;
+  router: Router;
+}
+
+export interface AppDeps {
+  config: Config;
+  sequelize: Sequelize;
+}
+
+/** Every API router and where it is mounted: the role matrix test walks this list. */
+export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>): ApiMount[] {
+  return [
+    { base: '/api/auth', router: authRoutes(config, passport) },
+    { base: '/api/users', router: userRoutes(sequelize) },
+    { base: '/api/regions', router: regionRoutes() },
+    { base: '/api/stocks', router: stockRoutes() },
+    { base: '/api/audit-events', router: auditRoutes() },
+  ];
+}
+
+export function createApp(deps: AppDeps): express.Express {
+  const { config, sequelize } = deps;
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+
+  app.use((_req, res, next) => {
+    res.setHeader('X-Request-Id', randomUUID());
+    next();
+  });
+  app.use(helmet({
+    contentSecurityPolicy: {
+      directives: {
+        'default-src': ["'self'"],
+        'script-src': ["'self'"],
+        // why: Angular Material and the CDK add style elements at run time
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'font-src': ["'self'", 'data:'],
+        'connect-src': ["'self'"],
+        'object-src': ["'none'"],
+        'frame-ancestors': ["'none'"],
+        'upgrade-insecure-requests': null,
+      },
+    },
+  }));
+  app.use(express.json({ limit: '1mb' }));
+
+  const store = new SequelizeStore({ db: sequelize, tableName: 'sessions', checkExpirationInterval: 15 * 60_000 });
+  app.locals.sessionStore = store;
+  app.use(session({
+    name: 'brinkmark.sid',
+    secret: config.SESSION_SECRET,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'strict',
+      secure: config.COOKIE_SECURE,
+      maxAge: config.SESSION_MAX_AGE_HOURS * 3_600_000,
+    },
+  }));
+  const passport = createPassport();
+  app.use(passport.initialize());
+  app.use(passport.session());
+  app.use('/api', csrfProtection);
+
+  const mounts = apiMounts(deps, passport);
+  app.locals.apiMounts = mounts;
+  for (const m of mounts) app.use(m.base, m.router);
+  app.use('/api', apiNotFound);
+
+  const clientDir = resolve(config.CLIENT_DIR);
+  if (existsSync(clientDir)) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/*splat', (_req, res) => res.sendFile(resolve(clientDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

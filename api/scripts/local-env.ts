@@ -1,0 +1,38 @@
+/** Environment for the local demo and test servers: ports, data directories, a stable session secret. */
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { mariaDbServer } from './mariadb';
+
+export const ROOT = resolve(import.meta.dirname, '..', '..');
+export const DATA = join(ROOT, '.data');
+
+/** A secret kept in .data/, so sessions stay valid across restarts of the local server. */
+export function localSecret(name: string): string {
+  mkdirSync(DATA, { recursive: true });
+  const file = join(DATA, `${name}.secret`);
+  if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600 });
+  return readFileSync(file, 'utf8').trim();
+}
+
+export type Profile = 'demo' | 'test';
+
+const PROFILES = {
+  demo: { datadir: join(DATA, 'mariadb'), dbPort: 4306, db: 'brinkmark', appPort: 4300 },
+  test: { datadir: join(DATA, 'mariadb-test'), dbPort: 4316, db: 'brinkmark_test', appPort: 4310 },
+} as const;
+
+/** The MariaDB server and process environment of a profile (demo data or tests). */
+export function profile(name: Profile) {
+  const p = PROFILES[name];
+  const env: Record<string, string> = {
+    NODE_ENV: name === 'test' ? 'test' : 'development',
+    PORT: String(process.env.PORT ?? p.appPort),
+    DB_PORT: String(p.dbPort),
+    DB_NAME: p.db,
+    DB_USER: 'brinkmark',
+    DB_PASSWORD: localSecret(`db-${name}`),
+    SESSION_SECRET: localSecret(`session-${name}`),
+  };
+  return { server: mariaDbServer(p.datadir, p.dbPort), env, db: { name: p.db, user: 'brinkmark', password: env.DB_PASSWORD } };
+}

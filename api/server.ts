@@ -1,0 +1,22 @@
+/** Starts the HTTP server on the configured loopback port. */
+import { createApp } from './app';
+import { loadConfig } from './config';
+import { createSequelize, schemaMigrator } from './db';
+
+const config = loadConfig();
+const sequelize = createSequelize(config);
+await sequelize.authenticate();
+await schemaMigrator(sequelize).up();
+const app = createApp({ config, sequelize });
+const server = app.listen(config.PORT, config.HOST, () => {
+  console.log(`Brinkmark is serving on http://${config.HOST}:${config.PORT}`);
+});
+
+function shutdown(): void {
+  server.close(() => {
+    app.locals.sessionStore.stopExpiringSessions();
+    void sequelize.close().then(() => process.exit(0));
+  });
+}
+process.on('SIGINT', shutdown);
+process.on('SIGTERM', shutdown);

@@ -1,0 +1,44 @@
+import {
+  CreationOptional, DataTypes, InferAttributes, InferCreationAttributes, Model, Sequelize,
+} from 'sequelize';
+import type { Role, UserView } from './user.schemas';
+
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<number>;
+  declare email: string;
+  declare name: string;
+  declare role: Role;
+  declare passwordHash: string;
+  declare organisation: string | null;
+  declare regionId: number | null;
+  declare active: CreationOptional<boolean>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  /** The public view of a user: what every API response shows. */
+  toView(): UserView {
+    return {
+      id: this.id, email: this.email, name: this.name, role: this.role,
+      organisation: this.organisation, regionId: this.regionId, active: this.active,
+      createdAt: this.createdAt.toISOString(),
+    };
+  }
+
+  static initModel(sequelize: Sequelize): void {
+    User.init(
+      {
+        id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+        email: { type: DataTypes.STRING(190), allowNull: false, unique: true },
+        name: { type: DataTypes.STRING(120), allowNull: false },
+        role: { type: DataTypes.ENUM('admin', 'assessor', 'board', 'licensee'), allowNull: false },
+        passwordHash: { type: DataTypes.STRING(100), allowNull: false, field: 'password_hash' },
+        organisation: { type: DataTypes.STRING(160), allowNull: true },
+        regionId: { type: DataTypes.INTEGER, allowNull: true, field: 'region_id' },
+        active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+        createdAt: { type: DataTypes.DATE, field: 'created_at' },
+        updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
+      },
+      { sequelize, tableName: 'users', modelName: 'User' },
+    );
+  }
+}

@@ -1,0 +1,35 @@
+/** Contract of the users API: shared with the client through `import type`. */
+import { z } from 'zod';
+
+export const ROLES = ['admin', 'assessor', 'board', 'licensee'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const createUserSchema = z.object({
+  email: z.email().max(190),
+  name: z.string().trim().min(2).max(120),
+  role: z.enum(ROLES),
+  password: z.string().min(10, 'at least 10 characters').max(128),
+  organisation: z.string().trim().max(160).nullish(),
+  regionId: z.number().int().positive().nullish(),
+}).strict();
+
+export const updateUserSchema = z.object({
+  role: z.enum(ROLES).optional(),
+  active: z.boolean().optional(),
+  regionId: z.number().int().positive().nullable().optional(),
+}).strict().refine((v) => Object.keys(v).length > 0, { message: 'nothing to change' });
+
+export type CreateUserBody = z.infer<typeof createUserSchema>;
+export type UpdateUserBody = z.infer<typeof updateUserSchema>;
+
+/** A user as the API returns it (never the password hash). */
+export interface UserView {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  organisation: string | null;
+  regionId: number | null;
+  active: boolean;
+  createdAt: string;
+}
