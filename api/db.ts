@@ -10,8 +10,11 @@ import { User } from './users/user.model';
 
 const models = [User, Region, Stock, AuditEvent];
 
-/** Opens a pool to the configured MariaDB database and registers every model. */
-export function createSequelize(config: Config): Sequelize {
+/**
+ * Opens a pool to the configured MariaDB database and registers every model on it. Models are
+ * bound to one instance per process (a Sequelize 6 rule): pass withModels=false for a bare pool.
+ */
+export function createSequelize(config: Config, { withModels = true } = {}): Sequelize {
   const sequelize = new Sequelize(config.DB_NAME, config.DB_USER, config.DB_PASSWORD, {
     host: config.DB_HOST,
     port: config.DB_PORT,
@@ -20,6 +23,7 @@ export function createSequelize(config: Config): Sequelize {
     timezone: '+00:00',
     pool: { max: 10, min: 0, idle: 10_000 },
   });
+  if (!withModels) return sequelize;
   for (const m of models) m.initModel(sequelize);
   for (const m of models) if ('associate' in m) (m as { associate(): void }).associate();
   return sequelize;

@@ -5,10 +5,10 @@ import { HttpError, NotSignedInError } from '../http/http-error';
 import { User } from '../users/user.model';
 import type { SessionView } from './auth.schemas';
 
-async function sessionView(req: Request): Promise<SessionView> {
+async function sessionView(req: Request, newToken: boolean): Promise<SessionView> {
   const user = await User.findByPk(req.user!.id);
   if (!user) throw new NotSignedInError();
-  return { user: user.toView(), csrfToken: generateCsrfToken(req, true) };
+  return { user: user.toView(), csrfToken: generateCsrfToken(req, newToken) };
 }
 
 /** GET /api/auth/csrf: the token to send in the x-csrf-token header. */
@@ -25,7 +25,7 @@ export function signIn(passport: PassportStatic) {
       // passport ≥ 0.6 regenerates the session inside logIn: a fixated session id is thrown away
       req.logIn(user, (loginErr) => {
         if (loginErr) return next(loginErr);
-        sessionView(req).then((view) => res.json(view), next);
+        sessionView(req, true).then((view) => res.json(view), next);
       });
     })(req, res, next);
   };
@@ -44,5 +44,5 @@ export function signOut(req: Request, res: Response, next: NextFunction): void {
 
 /** GET /api/auth/me: who is signed in. */
 export async function me(req: Request, res: Response): Promise<void> {
-  res.json(await sessionView(req));
+  res.json(await sessionView(req, false));
 }

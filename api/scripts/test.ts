@@ -1,0 +1,63 @@
+/**
+ * npm test: installs what the tests need (MariaDB, Chromium, poppler), starts a private test
+ * database, runs the server specs (jasmine + supertest) and the client specs (Karma in headless
+ * Chromium), and ends with one line "total: N passed, N failed". Exits non-zero on any failure.
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, readFileSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { ensureDebianPackages } from './debian';
+import { ensureDatabase, startMariaDb, stopMariaDb } from './mariadb';
+import { DATA, ROOT, profile } from './local-env';
+
+interface Totals { passed: number; failed: number; error?: boolean }
+
+const only = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length);
+const results: { name: string; totals: Totals; exit: number }[] = [];
+
+function readTotals(file: string): Totals {
+  if (!existsSync(file)) return { passed: 0, failed: 0, error: true };
+  return JSON.parse(readFileSync(file, 'utf8')) as Totals;
+}
+
+function run(name: string, cmd: string, args: string[], env: NodeJS.ProcessEnv, totalsFile: string): void {
+  rmSync(totalsFile, { force: true });
+  console.log(`\n=== ${name} ===`);
+  const started = Date.now();
+  const r = spawnSync(cmd, args, { cwd: ROOT, env, stdio: 'inherit' });
+  const totals = readTotals(totalsFile);
+  console.log(`${name}: ${totals.passed} passed, ${totals.failed} failed (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+  results.push({ name, totals, exit: r.status ?? 1 });
+}
+
+ensureDebianPackages([
+  { command: 'mariadbd', path: '/usr/sbin/mariadbd', pkg: 'mariadb-server' },
+  { command: 'chromium', path: '/usr/bin/chromium', pkg: 'chromium' },
+  { command: 'pdftoppm', path: '/usr/bin/pdftoppm', pkg: 'poppler-utils' },
+]);
+
+const test = profile('test');
+const env: NodeJS.ProcessEnv = { ...process.env, ...test.env, CHROME_BIN: '/usr/bin/chromium', SCRATCH_DB_NAME: 'brinkmark_scratch' };
+
+try {
+  if (only !== 'client') {
+    await startMariaDb(test.server);
+    ensureDatabase(test.server, test.db, true);
+    ensureDatabase(test.server, { ...test.db, name: 'brinkmark_scratch' }, true);
+    run('server specs', process.execPath,
+      ['--import', 'tsx', join(ROOT, 'node_modules', 'jasmine', 'bin', 'jasmine.js'), '--config=test/jasmine.json'],
+      env, join(DATA, 'jasmine-result.json'));
+  }
+  if (only !== 'api') {
+    run('client specs', join(ROOT, 'node_modules', '.bin', 'ng'), ['test', '--watch=false'], env, join(DATA, 'karma-result.json'));
+  }
+} finally {
+  stopMariaDb(test.server);
+}
+
+const passed = results.reduce((s, r) => s + r.totals.passed, 0);
+const failed = results.reduce((s, r) => s + r.totals.failed, 0);
+const broken = results.filter((r) => r.exit !== 0 || r.totals.error).map((r) => r.name);
+if (broken.length) console.log(`\nRunners that did not finish cleanly: ${broken.join(', ')}`);
+console.log(`\ntotal: ${passed} passed, ${failed} failed`);
+process.exit(failed > 0 || broken.length > 0 || passed === 0 ? 1 : 0);
