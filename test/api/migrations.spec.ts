@@ -9,6 +9,7 @@ describe('migrations', () => {
   it('run twice without error, undo completely, and apply again', async () => {
     const sequelize = createSequelize(config, { withModels: false });
     try {
+      await sequelize.getQueryInterface().dropAllTables();
       const first = await schemaMigrator(sequelize).up();
       const second = await schemaMigrator(sequelize).up();
       expect(first.length).toBeGreaterThan(0);
