@@ -3,6 +3,9 @@ import { AuditEvent } from '../../api/audit/audit-event.model';
 import { User } from '../../api/users/user.model';
 import { signIn, testApp } from './support/test-app';
 
+// A tag per run, so the specs also pass on a database that earlier runs left behind.
+const RUN = Date.now().toString(36);
+
 describe('user administration', () => {
   let app: Express;
   beforeAll(async () => {
@@ -12,19 +15,19 @@ describe('user administration', () => {
   it('creates an account, audits it, and the new person can sign in', async () => {
     const { agent, csrf } = await signIn(app, 'admin');
     const res = await agent.post('/api/users').set('x-csrf-token', csrf)
-      .send({ email: 'Nell.Brack@corran-firth.example', name: 'Nell Brack', role: 'assessor', password: 'a-long-first-password' })
+      .send({ email: `Nell.Brack.${RUN}@corran-firth.example`, name: 'Nell Brack', role: 'assessor', password: 'a-long-first-password' })
       .expect(201);
-    expect(res.body.user.email).toBe('nell.brack@corran-firth.example');
+    expect(res.body.user.email).toBe(`nell.brack.${RUN}@corran-firth.example`);
     const audit = await AuditEvent.findOne({ where: { action: 'user.create', entityId: res.body.user.id } });
     expect(audit).not.toBeNull();
-    await signIn(app, { email: 'nell.brack@corran-firth.example', password: 'a-long-first-password' });
+    await signIn(app, { email: `nell.brack.${RUN}@corran-firth.example`, password: 'a-long-first-password' });
   });
 
   it('refuses a forged field and stores nothing', async () => {
     const { agent, csrf } = await signIn(app, 'admin');
     const before = await User.count();
     const res = await agent.post('/api/users').set('x-csrf-token', csrf)
-      .send({ email: 'forged@corran-firth.example', name: 'Forged', role: 'admin', password: 'long-enough-pw', passwordHash: 'x' })
+      .send({ email: `forged.${RUN}@corran-firth.example`, name: 'Forged', role: 'admin', password: 'long-enough-pw', passwordHash: 'x' })
       .expect(400);
     expect(res.body.error.code).toBe('VALIDATION_FAILED');
     expect(await User.count()).toBe(before);
@@ -33,7 +36,7 @@ describe('user administration', () => {
   it('refuses a licensee without a region, naming the field', async () => {
     const { agent, csrf } = await signIn(app, 'admin');
     const res = await agent.post('/api/users').set('x-csrf-token', csrf)
-      .send({ email: 'no-region@corran-firth.example', name: 'No Region', role: 'licensee', password: 'long-enough-pw' })
+      .send({ email: `no-region.${RUN}@corran-firth.example`, name: 'No Region', role: 'licensee', password: 'long-enough-pw' })
       .expect(400);
     expect(res.body.error.fields.regionId).toBeDefined();
   });
@@ -49,8 +52,8 @@ describe('user administration', () => {
   it('changes a role with before and after in the audit trail, and the change applies at once', async () => {
     const admin = await signIn(app, 'admin');
     const created = await admin.agent.post('/api/users').set('x-csrf-token', admin.csrf)
-      .send({ email: 'role.change@corran-firth.example', name: 'Role Change', role: 'board', password: 'long-enough-pw' }).expect(201);
-    const person = await signIn(app, { email: 'role.change@corran-firth.example', password: 'long-enough-pw' });
+      .send({ email: `role.change.${RUN}@corran-firth.example`, name: 'Role Change', role: 'board', password: 'long-enough-pw' }).expect(201);
+    const person = await signIn(app, { email: `role.change.${RUN}@corran-firth.example`, password: 'long-enough-pw' });
     await person.agent.get('/api/users').expect(403);
     await admin.agent.patch(`/api/users/${created.body.user.id}`).set('x-csrf-token', admin.csrf).send({ role: 'admin' }).expect(200);
     await person.agent.get('/api/users').expect(200);
@@ -69,8 +72,8 @@ describe('user administration', () => {
   it('shuts out a deactivated account on its next request', async () => {
     const admin = await signIn(app, 'admin');
     const created = await admin.agent.post('/api/users').set('x-csrf-token', admin.csrf)
-      .send({ email: 'leaver@corran-firth.example', name: 'Leaver', role: 'assessor', password: 'long-enough-pw' }).expect(201);
-    const person = await signIn(app, { email: 'leaver@corran-firth.example', password: 'long-enough-pw' });
+      .send({ email: `leaver.${RUN}@corran-firth.example`, name: 'Leaver', role: 'assessor', password: 'long-enough-pw' }).expect(201);
+    const person = await signIn(app, { email: `leaver.${RUN}@corran-firth.example`, password: 'long-enough-pw' });
     await admin.agent.patch(`/api/users/${created.body.user.id}`).set('x-csrf-token', admin.csrf).send({ active: false }).expect(200);
     await person.agent.get('/api/stocks').expect(401);
   });
