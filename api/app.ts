@@ -97,7 +97,7 @@ export function createApp(deps: AppDeps): express.Express {
   const clientDir = resolve(config.CLIENT_DIR);
   if (existsSync(clientDir)) {
     app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    app.get('/*splat', (_req, res) => res.sendFile(resolve(clientDir, 'index.html')));
+    app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: clientDir }));
   }
   app.use(errorHandler);
   return app;

@@ -19,7 +19,7 @@ export type Profile = 'demo' | 'test';
 
 const PROFILES = {
   demo: { datadir: join(DATA, 'mariadb'), dbPort: 4306, db: 'brinkmark', appPort: 4300 },
-  test: { datadir: join(DATA, 'mariadb-test'), dbPort: 4316, db: 'brinkmark_test', appPort: 4310 },
+  test: { datadir: join(DATA, 'mariadb-test'), dbPort: 4316, db: 'brinkmark_test', appPort: 4320 },
 } as const;
 
 /** The MariaDB server and process environment of a profile (demo data or tests). */
