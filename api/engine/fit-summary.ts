@@ -1,0 +1,148 @@
+/** Turns a raw surplus-production fit into what an assessor reads: estimates with intervals, diagnostics. */
+import { covarianceFromHessian, deltaVariance, gradient, hessian } from './hessian';
+import { concentratedIndexFit } from './likelihood';
+import { referencePoints } from './surplus';
+import type { RawFit } from './fit-surplus';
+import type { StockSeries } from './series';
+import { rangePosition } from './transforms';
+
+export interface Estimate {
+  name: string;
+  value: number;
+  /** Approximate standard error from the inverse Hessian (delta method), or null. */
+  se: number | null;
+  /** Approximate 95% interval (log-normal, from the Hessian), or null when it cannot be trusted. */
+  ci95: [number, number] | null;
+}
+
+export interface IndexSummary {
+  name: string;
+  q: number;
+  sigma: number;
+  /** Log residuals per year (null where no observation). */
+  residuals: (number | null)[];
+  /** Fitted index q̂·B_t per year. */
+  fitted: number[];
+}
+
+export interface Convergence {
+  converged: boolean;
+  iterations: number;
+  evaluations: number;
+  simplexSize: number;
+  gradientNorm: number;
+  startsRun: number;
+  startsAgreeing: number;
+  warnings: string[];
+}
+
+export interface SurplusFitSummary {
+  model: string;
+  years: number[];
+  params: { r: number; K: number; d0: number; p: number };
+  free: number[];
+  estimates: Estimate[];
+  logLik: number;
+  aic: number;
+  aicc: number;
+  nParams: number;
+  nObs: number;
+  indices: IndexSummary[];
+  /** Biomass at the start of each year and at the end of the last year. */
+  biomass: number[];
+  catches: number[];
+  filledCatchYears: number[];
+  reference: { msy: number; bMsy: number; fMsy: number };
+  /** Fold harvest: the largest constant catch with a positive stable equilibrium. */
+  hStar: number;
+  status: { year: number; bOverBmsy: number; fOverFmsy: number };
+  convergence: Convergence;
+}
+
+/** Derived quantities, each a function of the free parameters. */
+function derived(fit: RawFit) {
+  const { problem } = fit;
+  const last = problem.catches.length - 1;
+  const ref = (u: number[]) => referencePoints(problem.model, problem.decode(u));
+  const bEnd = (u: number[]) => problem.path(u).biomass[last + 1]!;
+  const bLast = (u: number[]) => problem.path(u).biomass[last]!;
+  const q: [string, (u: number[]) => number][] = [
+    ['r', (u) => problem.decode(u).r],
+    ['K', (u) => problem.decode(u).K],
+    ['B0/K', (u) => problem.decode(u).d0],
+  ];
+  if (problem.bounds.length === 4) q.push(['p', (u) => problem.decode(u).p!]);
+  q.push(
+    ['MSY', (u) => ref(u).msy],
+    ['B_MSY', (u) => ref(u).bMsy],
+    ['F_MSY', (u) => ref(u).fMsy],
+    ['h*', (u) => ref(u).msy],
+    ['B/B_MSY', (u) => bEnd(u) / ref(u).bMsy],
+    ['F/F_MSY', (u) => problem.catches[last]! / Math.max(bLast(u), 1e-12) / ref(u).fMsy],
+  );
+  return q;
+}
+
+/** Estimates, intervals, information criteria, residuals and convergence diagnostics. */
+export function summariseFit(series: StockSeries, fit: RawFit, { intervals = true } = {}): SurplusFitSummary {
+  const { problem, u } = fit;
+  const params = problem.decode(u);
+  const ref = referencePoints(problem.model, params);
+  const { biomass } = problem.path(u);
+  const warnings: string[] = [];
+  if (problem.filledYears.length) warnings.push(`Catch missing in ${problem.filledYears.join(', ')}: filled by linear interpolation.`);
+
+  const H = intervals ? hessian(problem.nll, u) : null;
+  const cov = H ? covarianceFromHessian(H) : null;
+  if (cov && !cov.cov) warnings.push('The Hessian is not positive definite: the fit is not identifiable from these data; intervals are withheld.');
+  else if (cov && cov.conditionNumber > 1e8) warnings.push(`The Hessian is ill-conditioned (condition number ${cov.conditionNumber.toExponential(1)}): parameters are weakly identified.`);
+  if (cov?.cov) {
+    const c = cov.cov;
+    const rho = c[0]![1]! / Math.sqrt(c[0]![0]! * c[1]![1]!);
+    if (Math.abs(rho) > 0.95) warnings.push(`r and K are strongly correlated (ρ = ${rho.toFixed(2)} on the fitted scale): their product (MSY) is better determined than either.`);
+  }
+  problem.bounds.forEach((b, i) => {
+    const pos = rangePosition(u[i]!);
+    if (pos < 1e-3 || pos > 1 - 1e-3) warnings.push(`${b.name} sits on its bound (${b.lo}–${b.hi}): the estimate is not reliable.`);
+  });
+  const agreeing = fit.startValues.filter((v) => v - fit.nll < 0.01).length;
+  const spread = fit.startPoints.filter((_, i) => fit.startValues[i]! - fit.nll < 0.01)
+    .some((x) => Math.abs(problem.decode(x).r / params.r - 1) > 0.05);
+  if (spread) warnings.push('Starts that reach the same likelihood give r differing by more than 5%: the likelihood surface is flat.');
+  if (fit.hitIterationLimit) warnings.push('The optimiser stopped at its iteration limit.');
+  const grad = intervals ? gradient(problem.nll, u) : u.map(() => 0);
+  const gradientNorm = Math.hypot(...grad);
+  if (intervals && gradientNorm > 1e-2) warnings.push(`The gradient at the optimum is ${gradientNorm.toExponential(1)}: the fit may not have converged.`);
+
+  const estimates: Estimate[] = derived(fit).map(([name, g]) => {
+    const value = g(u);
+    if (!cov?.cov || !(value > 0)) return { name, value, se: null, ci95: null };
+    const seLog = Math.sqrt(Math.max(deltaVariance((x) => Math.log(g(x)), u, cov.cov), 0));
+    return { name, value, se: value * seLog, ci95: [value * Math.exp(-1.96 * seLog), value * Math.exp(1.96 * seLog)] };
+  });
+
+  const indices = series.indices.map((ix) => {
+    const f = concentratedIndexFit(ix.values, biomass, ix.cv)!;
+    return { name: ix.name, q: f.q, sigma: f.sigma, residuals: f.residuals, fitted: series.years.map((_, t) => f.q * biomass[t]!) };
+  });
+  const nParams = problem.bounds.length + 2 * series.indices.length;
+  const n = problem.nObs;
+  const aic = 2 * nParams + 2 * fit.nll;
+  const last = problem.catches.length - 1;
+  return {
+    model: problem.model, years: series.years, params: { ...params, p: params.p ?? 1 }, free: u, estimates,
+    logLik: -fit.nll, aic, aicc: n - nParams - 1 > 0 ? aic + (2 * nParams * (nParams + 1)) / (n - nParams - 1) : Infinity,
+    nParams, nObs: n, indices, biomass, catches: problem.catches, filledCatchYears: problem.filledYears,
+    reference: ref, hStar: ref.msy,
+    status: {
+      year: series.years[last]!,
+      bOverBmsy: biomass[last + 1]! / ref.bMsy,
+      fOverFmsy: problem.catches[last]! / Math.max(biomass[last]!, 1e-12) / ref.fMsy,
+    },
+    convergence: {
+      converged: warnings.every((w) => !/not converged|iteration limit|not identifiable/.test(w)),
+      iterations: fit.iterations, evaluations: fit.evaluations, simplexSize: fit.simplexSize, gradientNorm,
+      startsRun: fit.startValues.length, startsAgreeing: agreeing, warnings,
+    },
+  };
+}
