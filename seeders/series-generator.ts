@@ -3,6 +3,7 @@
  * of the scenario. `npm run --silent seed-series` rewrites seeders/data/*.csv.
  */
 import { createRng } from '../api/engine/random';
+import { predatorPreyPath } from '../api/engine/predator-prey';
 import { biomassPath, type SurplusModelName } from '../api/engine/surplus';
 
 export const SERIES_SEED = 20261202;
@@ -65,4 +66,42 @@ function hash(s: string): number {
   let h = 2166136261;
   for (const ch of s) h = Math.imul(h ^ ch.charCodeAt(0), 16777619);
   return h >>> 0;
+}
+
+/**
+ * Skerry sprat (prey) and ridge cod (predator), Rosenzweig-MacArthur. Chosen so that the history
+ * sits at a stable equilibrium (K below the Hopf threshold) with handling time h = 0.5/(aK).
+ */
+export const SPRAT_COD_TRUTH = {
+  code: 'sprat-ridge-cod',
+  params: { r: 1.2, K: 250_000, a: 1.5733e-5, h: 0.5 / (1.5733e-5 * 250_000), e: 0.25, m: 0.3 },
+  start: [0.5 * 250_000, 40_000] as [number, number],
+  qPrey: 1.1e-3,
+  qPredator: 2.4e-3,
+  sd: 0.2,
+  preyCatchPeak: 24_000,
+  predatorCatchPeak: 3_600,
+};
+
+export interface SimulatedPair {
+  years: number[];
+  preyCatch: number[];
+  predatorCatch: number[];
+  preyIndex: number[];
+  predatorIndex: number[];
+  prey: number[];
+  predator: number[];
+}
+
+/** Simulates the linked sprat and cod stocks with their two surveys. */
+export function simulateSpratCod(seed = SERIES_SEED): SimulatedPair {
+  const t = SPRAT_COD_TRUTH;
+  const rng = createRng(seed ^ hash(t.code));
+  const preyCatch = catchHistory(t.preyCatchPeak).map((c) => Math.round(c * (0.95 + 0.1 * rng.uniform())));
+  const predatorCatch = catchHistory(t.predatorCatchPeak).map((c) => Math.round(c * (0.95 + 0.1 * rng.uniform())));
+  const path = predatorPreyPath({ model: 'rosenzweig-macarthur', params: t.params }, t.start, preyCatch, predatorCatch);
+  if (path.collapseYear !== null) throw new Error('sprat-ridge-cod: the simulated history collapses');
+  const preyIndex = preyCatch.map((_, i) => round4(t.qPrey * path.prey[i]! * Math.exp(t.sd * rng.normal())));
+  const predatorIndex = preyCatch.map((_, i) => round4(t.qPredator * path.predator[i]! * Math.exp(t.sd * rng.normal())));
+  return { years: preyCatch.map((_, i) => FIRST_YEAR + i), preyCatch, predatorCatch, preyIndex, predatorIndex, prey: path.prey, predator: path.predator };
 }
