@@ -1,0 +1,64 @@
+/** Runs a bootstrap across worker threads, with progress events and cancellation through an AbortSignal. */
+import { availableParallelism } from 'node:os';
+import { Worker } from 'node:worker_threads';
+import type { BootstrapRequest, Replicate } from './bootstrap';
+
+export interface PoolOptions {
+  workers?: number;
+  onProgress?: (done: number, total: number) => void;
+  signal?: AbortSignal;
+}
+
+// why: Node 20 workers ignore `--import tsx`, so each worker registers tsx itself, then loads the TypeScript entry
+const WORKER_BOOT = `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(
+  new URL('./bootstrap-worker.ts', import.meta.url).href,
+)}); })`;
+
+export class BootstrapCancelled extends Error {
+  constructor() {
+    super('The bootstrap was cancelled.');
+  }
+}
+
+/** Splits the replicates over workers (default: one per core) and gathers them in replicate order. */
+export function bootstrapInWorkers(req: BootstrapRequest, opts: PoolOptions = {}): Promise<Replicate[]> {
+  const n = Math.max(1, Math.min(opts.workers ?? availableParallelism(), req.replicates));
+  const sizes = Array.from({ length: n }, (_, i) => Math.floor(req.replicates / n) + (i < req.replicates % n ? 1 : 0));
+  const done = new Array<number>(n).fill(0);
+  const results = new Array<Replicate[]>(n);
+  const workers: Worker[] = [];
+  return new Promise((resolve, reject) => {
+    let finished = 0;
+    let settled = false;
+    const fail = (err: Error) => {
+      if (settled) return;
+      settled = true;
+      for (const w of workers) void w.terminate();
+      reject(err);
+    };
+    if (opts.signal?.aborted) return fail(new BootstrapCancelled());
+    opts.signal?.addEventListener('abort', () => fail(new BootstrapCancelled()), { once: true });
+    let offset = req.offset ?? 0;
+    sizes.forEach((size, i) => {
+      const worker = new Worker(WORKER_BOOT, { eval: true, workerData: { ...req, replicates: size, offset } });
+      offset += size;
+      workers.push(worker);
+      worker.on('message', (msg: { type: 'progress'; done: number } | { type: 'done'; replicates: Replicate[] }) => {
+        if (msg.type === 'progress') {
+          done[i] = msg.done;
+          opts.onProgress?.(done.reduce((s, v) => s + v, 0), req.replicates);
+          return;
+        }
+        results[i] = msg.replicates;
+        if (++finished === n && !settled) {
+          settled = true;
+          resolve(results.flat());
+        }
+      });
+      worker.on('error', fail);
+      worker.on('exit', (code) => {
+        if (code !== 0) fail(new Error(`bootstrap worker exited with code ${code}`));
+      });
+    });
+  });
+}
