@@ -4,6 +4,7 @@
  */
 import { createRng } from '../api/engine/random';
 import { predatorPreyPath } from '../api/engine/predator-prey';
+import type { StockSeries } from '../api/engine/series';
 import { biomassPath, type SurplusModelName } from '../api/engine/surplus';
 
 export const SERIES_SEED = 20261202;
@@ -49,9 +50,9 @@ export interface SimulatedSeries {
 }
 
 /** Simulates one single stock: true biomass path, lognormal survey index, catches rounded to 0.1. */
-export function simulateSingle(truth: SingleStockTruth, seed = SERIES_SEED): SimulatedSeries {
+export function simulateSingle(truth: SingleStockTruth, seed = SERIES_SEED, years = N_YEARS): SimulatedSeries {
   const rng = createRng(seed ^ hash(truth.code));
-  const catches = catchHistory(truth.catchPeak).map((c) => Math.round(c * (0.95 + 0.1 * rng.uniform()) * 10) / 10);
+  const catches = catchHistory(truth.catchPeak, years).map((c) => Math.round(c * (0.95 + 0.1 * rng.uniform()) * 10) / 10);
   const { biomass, collapseYear } = biomassPath(truth.model, truth, truth.d0 * truth.K, catches);
   if (collapseYear !== null) throw new Error(`${truth.code}: the simulated history collapses; lower the catches`);
   const index = catches.map((_, t) => round4(truth.q * biomass[t]! * Math.exp(truth.sd * rng.normal())));
@@ -104,4 +105,19 @@ export function simulateSpratCod(seed = SERIES_SEED): SimulatedPair {
   const preyIndex = preyCatch.map((_, i) => round4(t.qPrey * path.prey[i]! * Math.exp(t.sd * rng.normal())));
   const predatorIndex = preyCatch.map((_, i) => round4(t.qPredator * path.predator[i]! * Math.exp(t.sd * rng.normal())));
   return { years: preyCatch.map((_, i) => FIRST_YEAR + i), preyCatch, predatorCatch, preyIndex, predatorIndex, prey: path.prey, predator: path.predator };
+}
+
+/** The demo series as StockSeries, keyed by stock code. */
+export function demoSeries(): Record<string, StockSeries> {
+  const out: Record<string, StockSeries> = {};
+  for (const t of SINGLE_STOCKS) {
+    const s = simulateSingle(t);
+    out[t.code] = { years: s.years, catches: s.catches, indices: [{ name: t.indexName, values: s.index, cv: null }] };
+  }
+  const pc = simulateSpratCod();
+  out[SPRAT_COD_TRUTH.code] = {
+    years: pc.years, catches: pc.preyCatch, predatorCatches: pc.predatorCatch,
+    indices: [{ name: 'prey_index', values: pc.preyIndex, cv: null }, { name: 'predator_index', values: pc.predatorIndex, cv: null }],
+  };
+  return out;
 }

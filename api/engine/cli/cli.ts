@@ -1,0 +1,77 @@
+/**
+ * Command line for scripted runs:
+ *   npm run --silent cli -- fit   --model schaefer --input FILE.csv [--shape P] [--bootstrap N] [--seed S]
+ *   npm run --silent cli -- fold  --model schaefer --input FILE.csv
+ *   npm run --silent cli -- quota --model schaefer --input FILE.csv [--risk 0.05] [--replicates 1000]
+ *        [--limit 0.4] [--trigger 0.8] [--ftarget 1] [--candidates 1000,1500] [--years 10] [--process-sd 0.1]
+ * Prints JSON on standard output; on bad input prints the problems on standard error and exits 2.
+ */
+import { readFileSync } from 'node:fs';
+import { parseArgs } from 'node:util';
+import { assessSurplus, bootstrapFit, ENGINE_VERSION, quotaStudy } from '../assessment';
+import { parseStockCsv } from '../csv';
+import type { SurplusModelName } from '../surplus';
+
+class UsageError extends Error {}
+
+const MODELS: SurplusModelName[] = ['schaefer', 'pella-tomlinson', 'fox'];
+
+function num(v: string | undefined, name: string, def: number): number {
+  if (v === undefined) return def;
+  const n = Number(v);
+  if (!Number.isFinite(n)) throw new UsageError(`--${name} must be a number, not "${v}"`);
+  return n;
+}
+
+async function main(argv: string[]): Promise<unknown> {
+  const [command, ...rest] = argv;
+  if (!command || !['fit', 'fold', 'quota'].includes(command)) throw new UsageError('usage: cli fit|fold|quota --model MODEL --input FILE.csv [options]');
+  const { values: o } = parseArgs({
+    args: rest, strict: true,
+    options: {
+      model: { type: 'string' }, input: { type: 'string' }, shape: { type: 'string' }, bootstrap: { type: 'string' },
+      seed: { type: 'string' }, risk: { type: 'string' }, replicates: { type: 'string' }, limit: { type: 'string' },
+      trigger: { type: 'string' }, ftarget: { type: 'string' }, candidates: { type: 'string' }, years: { type: 'string' },
+      'process-sd': { type: 'string' }, workers: { type: 'string' },
+    },
+  });
+  const model = o.model as SurplusModelName;
+  if (!MODELS.includes(model)) throw new UsageError(`--model must be one of ${MODELS.join(', ')}`);
+  if (!o.input) throw new UsageError('--input FILE.csv is required');
+  let text: string;
+  try { text = readFileSync(o.input, 'utf8'); } catch { throw new UsageError(`cannot read ${o.input}`); }
+  const parsed = parseStockCsv(text);
+  if (!parsed.ok) throw new UsageError(`${o.input} has ${parsed.errors.length} problem(s):\n` + parsed.errors.map((e) => `  line ${e.line}${e.column ? `, ${e.column}` : ''}: ${e.problem} ${e.fix}`).join('\n'));
+  if (parsed.kind !== 'single') throw new UsageError('the command line fits single stocks; this file is a linked predator-prey file');
+  const opts = { model, shape: o.shape === undefined ? undefined : num(o.shape, 'shape', 1) };
+  const seed = num(o.seed, 'seed', 1);
+  const { fit, fold } = assessSurplus(parsed.series, opts);
+  if (command === 'fold') return { engine: ENGINE_VERSION, model, hStar: fold.hStar, bFold: fold.bFold, table: fold.table };
+  const workers = o.workers === undefined ? undefined : num(o.workers, 'workers', 2);
+  if (command === 'fit') {
+    const n = num(o.bootstrap, 'bootstrap', 0);
+    const reps = n > 0 ? await bootstrapFit(parsed.series, opts, fit, { replicates: n, seed, workers }) : null;
+    return {
+      engine: ENGINE_VERSION, model, estimates: fit.estimates, logLik: fit.logLik, aic: fit.aic, aicc: fit.aicc,
+      msy: fit.reference.msy, bMsy: fit.reference.bMsy, fMsy: fit.reference.fMsy, foldHarvest: fold.hStar, status: fit.status,
+      indices: fit.indices.map((i) => ({ name: i.name, q: i.q, sigma: i.sigma })), convergence: fit.convergence,
+      bootstrap: reps ? quotaStudy(model, fit, reps, { risk: 0.05, rule: { limit: 0.4, trigger: 0.8, fTargetOverFmsy: 1 }, candidates: [], years: 1, processSd: 0, limitFraction: 0.5, seed }).intervals : null,
+    };
+  }
+  const reps = await bootstrapFit(parsed.series, opts, fit, { replicates: num(o.replicates, 'replicates', 1000), seed, workers });
+  const candidates = (o.candidates ?? '').split(',').filter(Boolean).map((c) => num(c, 'candidates', 0));
+  const study = quotaStudy(model, fit, reps, {
+    risk: num(o.risk, 'risk', 0.05),
+    rule: { limit: num(o.limit, 'limit', 0.4), trigger: num(o.trigger, 'trigger', 0.8), fTargetOverFmsy: num(o.ftarget, 'ftarget', 1) },
+    candidates, years: num(o.years, 'years', 10), processSd: num(o['process-sd'], 'process-sd', 0.1), limitFraction: 0.5, seed,
+  });
+  return { engine: ENGINE_VERSION, model, foldHarvest: fold.hStar, msy: fit.reference.msy, ...study };
+}
+
+try {
+  console.log(JSON.stringify(await main(process.argv.slice(2)), null, 2));
+} catch (err) {
+  const message = err instanceof UsageError || (err as { code?: string }).code?.startsWith('ERR_PARSE_ARGS') ? (err as Error).message : `engine failure: ${(err as Error).message}`;
+  console.error(`brinkmark: ${message}`);
+  process.exit(2);
+}

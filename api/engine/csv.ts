@@ -1,0 +1,135 @@
+/**
+ * Brinkmark's plain CSV for a stock's annual data, read with csv-parse. Header row; one row a year.
+ * Columns: `year`; `catch` (single stock) or `prey_catch` and `predator_catch` (linked stocks); one
+ * column per survey index (any other name; for linked stocks `prey_index` and `predator_index`);
+ * optional `<index>_cv`. Empty cells are missing values. Every problem is reported with its line.
+ */
+import { parse } from 'csv-parse/sync';
+import type { StockSeries } from './series';
+
+export interface CsvProblem {
+  line: number;
+  column: string | null;
+  value: string | null;
+  problem: string;
+  fix: string;
+}
+
+export type CsvResult = { ok: true; series: StockSeries; kind: 'single' | 'predator-prey' } | { ok: false; errors: CsvProblem[] };
+
+export const MIN_YEARS = 10;
+const MAX_ROWS = 500;
+const NAME = /^[a-z][a-z0-9_]{0,39}$/;
+
+/** Parses and checks a CSV text; never throws for bad input. */
+export function parseStockCsv(text: string): CsvResult {
+  let rows: string[][];
+  try {
+    rows = parse(text, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true }) as string[][];
+  } catch (err) {
+    const e = err as { lines?: number; message: string };
+    return fail([{ line: e.lines ?? 1, column: null, value: null, problem: `The file is not valid CSV: ${e.message.split(':').slice(-1)[0]!.trim()}`, fix: 'Check quotes and separators (comma-separated, double quotes around text with commas).' }]);
+  }
+  if (rows.length === 0) return fail([{ line: 1, column: null, value: null, problem: 'The file is empty.', fix: 'Upload a CSV with a header row and one row a year.' }]);
+  if (rows.length - 1 > MAX_ROWS) return fail([{ line: MAX_ROWS + 2, column: null, value: null, problem: `More than ${MAX_ROWS} years.`, fix: 'Split the file or check that it is an annual series.' }]);
+  const header = rows[0]!.map((h) => h.toLowerCase());
+  const headerErrors = checkHeader(header);
+  if (headerErrors.length) return fail(headerErrors);
+  const linked = header.includes('prey_catch');
+  const catchCols = linked ? ['prey_catch', 'predator_catch'] : ['catch'];
+  const indexCols = header.filter((h) => h !== 'year' && !catchCols.includes(h) && !h.endsWith('_cv'));
+  const errors: CsvProblem[] = [];
+  const col = (name: string) => header.indexOf(name);
+  const data = rows.slice(1);
+  const years: number[] = [];
+  const cells = new Map<string, (number | null)[]>([...catchCols, ...indexCols, ...header.filter((h) => h.endsWith('_cv'))].map((c) => [c, []]));
+
+  data.forEach((row, i) => {
+    const line = i + 2;
+    if (row.length !== header.length) {
+      errors.push({ line, column: null, value: row.join(','), problem: `Row has ${row.length} cells, the header has ${header.length}.`, fix: 'Give every row one cell per header column (leave missing values empty).' });
+      return;
+    }
+    const yText = row[col('year')]!;
+    const year = Number(yText);
+    if (yText === '' || !Number.isInteger(year)) errors.push({ line, column: 'year', value: yText, problem: 'The year is not a whole number.', fix: 'Write the year as four digits, e.g. 1997.' });
+    else if (year < 1800 || year > 2200) errors.push({ line, column: 'year', value: yText, problem: 'The year is outside 1800–2200.', fix: 'Check the year column.' });
+    else if (years.includes(year)) errors.push({ line, column: 'year', value: yText, problem: `Year ${year} appears twice.`, fix: 'Keep one row per year.' });
+    else if (years.length && year < years[years.length - 1]!) errors.push({ line, column: 'year', value: yText, problem: `Year ${year} comes after ${years[years.length - 1]}: years are not increasing.`, fix: 'Sort the rows by year.' });
+    else if (years.length && year !== years[years.length - 1]! + 1) errors.push({ line, column: 'year', value: yText, problem: `Years ${years[years.length - 1]! + 1}–${year - 1} are missing.`, fix: 'Add a row for each year; leave unknown values empty.' });
+    years.push(year);
+    for (const [name, values] of cells) {
+      const text = row[col(name)]!;
+      if (text === '' || text.toUpperCase() === 'NA') { values.push(null); continue; }
+      const v = Number(text);
+      if (!Number.isFinite(v)) {
+        errors.push({ line, column: name, value: text, problem: 'Not a number.', fix: 'Use digits with a decimal point (no units, no thousands separators); leave missing values empty.' });
+        values.push(null);
+        continue;
+      }
+      if (catchCols.includes(name) && v < 0) errors.push({ line, column: name, value: text, problem: 'A catch cannot be negative.', fix: 'Enter the removals as a positive amount, or 0.' });
+      if (indexCols.includes(name) && v <= 0) errors.push({ line, column: name, value: text, problem: v === 0 ? 'An index of zero cannot be fitted (its logarithm is taken).' : 'A survey index cannot be negative.', fix: 'Leave the cell empty if the survey saw nothing or did not run.' });
+      if (name.endsWith('_cv') && (v <= 0 || v > 5)) errors.push({ line, column: name, value: text, problem: 'A CV must be above 0 and at most 5.', fix: 'Enter the coefficient of variation as a fraction, e.g. 0.2.' });
+      values.push(v);
+    }
+  });
+  if (errors.length) return fail(errors);
+  for (const c of catchCols) {
+    if (cells.get(c)!.every((v) => v === null)) errors.push({ line: 2, column: c, value: null, problem: 'No catch is recorded in any year.', fix: 'Enter the removals for at least some years (use 0 for none).' });
+  }
+  for (const ix of indexCols) {
+    const n = cells.get(ix)!.filter((v) => v !== null).length;
+    if (n < MIN_YEARS) errors.push({ line: 1, column: ix, value: null, problem: `Only ${n} years have a value for ${ix}; at least ${MIN_YEARS} are needed to fit a model.`, fix: 'Add more survey years, or drop this column.' });
+    const cv = cells.get(`${ix}_cv`);
+    cv?.forEach((v, i) => {
+      if (v !== null && cells.get(ix)![i] === null) errors.push({ line: i + 2, column: `${ix}_cv`, value: String(v), problem: 'A CV is given for a year without an index value.', fix: 'Remove the CV or enter the index value.' });
+    });
+  }
+  if (errors.length) return fail(errors);
+  const series: StockSeries = {
+    years,
+    catches: cells.get(catchCols[0]!)!,
+    indices: indexCols.map((name) => ({ name, values: cells.get(name)!, cv: cells.get(`${name}_cv`) ?? null })),
+  };
+  if (linked) series.predatorCatches = cells.get('predator_catch')!;
+  return { ok: true, series, kind: linked ? 'predator-prey' : 'single' };
+}
+
+function checkHeader(header: string[]): CsvProblem[] {
+  const e = (problem: string, fix: string, column: string | null = null): CsvProblem => ({ line: 1, column, value: column, problem, fix });
+  const out: CsvProblem[] = [];
+  if (!header.includes('year')) out.push(e('There is no "year" column.', 'Name the first column "year".'));
+  const dup = header.find((h, i) => header.indexOf(h) !== i);
+  if (dup !== undefined) out.push(e(`The column "${dup}" appears twice.`, 'Give every column its own name.', dup));
+  for (const h of header) if (!NAME.test(h)) out.push(e(`"${h}" is not a usable column name.`, 'Use lower-case letters, digits and underscores, starting with a letter.', h));
+  const linked = header.includes('prey_catch') || header.includes('predator_catch');
+  if (linked) {
+    for (const c of ['prey_catch', 'predator_catch', 'prey_index', 'predator_index']) if (!header.includes(c)) out.push(e(`A linked predator-prey file needs a "${c}" column.`, 'Add the column (values may be empty where unknown).'));
+    if (header.includes('catch')) out.push(e('A linked file has "prey_catch" and "predator_catch", not "catch".', 'Remove or rename the "catch" column.', 'catch'));
+  } else if (!header.includes('catch')) out.push(e('There is no "catch" column.', 'Add a "catch" column with the removals per year.'));
+  const catchNames = ['year', 'catch', 'prey_catch', 'predator_catch'];
+  const indices = header.filter((h) => !catchNames.includes(h) && !h.endsWith('_cv'));
+  if (indices.length === 0) out.push(e('There is no survey index column.', 'Add at least one column of survey index values.'));
+  for (const h of header.filter((x) => x.endsWith('_cv'))) {
+    if (!indices.includes(h.slice(0, -3))) out.push(e(`"${h}" is a CV column for an index that is not in the file.`, `Name it after an index column, e.g. "${indices[0] ?? 'survey'}_cv".`, h));
+  }
+  return out;
+}
+
+function fail(errors: CsvProblem[]): CsvResult {
+  return { ok: false, errors };
+}
+
+/** Writes a series back as Brinkmark CSV. */
+export function formatStockCsv(series: StockSeries): string {
+  const linked = series.predatorCatches !== undefined;
+  const cols = ['year', ...(linked ? ['prey_catch', 'predator_catch'] : ['catch'])];
+  for (const ix of series.indices) cols.push(ix.name, ...(ix.cv ? [`${ix.name}_cv`] : []));
+  const cell = (v: number | null | undefined) => (v === null || v === undefined ? '' : String(v));
+  const lines = series.years.map((y, i) => {
+    const row = [String(y), cell(series.catches[i]), ...(linked ? [cell(series.predatorCatches![i])] : [])];
+    for (const ix of series.indices) row.push(cell(ix.values[i]), ...(ix.cv ? [cell(ix.cv[i])] : []));
+    return row.join(',');
+  });
+  return [cols.join(','), ...lines].join('\n') + '\n';
+}
