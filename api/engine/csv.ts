@@ -27,8 +27,14 @@ export function parseStockCsv(text: string): CsvResult {
   try {
     rows = parse(text, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true }) as string[][];
   } catch (err) {
-    const e = err as { lines?: number; message: string };
-    return fail([{ line: e.lines ?? 1, column: null, value: null, problem: `The file is not valid CSV: ${e.message.split(':').slice(-1)[0]!.trim()}`, fix: 'Check quotes and separators (comma-separated, double quotes around text with commas).' }]);
+    const e = err as { lines?: number; code?: string; message: string };
+    const unbalanced = text.split(/\r?\n/).findIndex((l) => (l.match(/"/g)?.length ?? 0) % 2 === 1);
+    const quote = e.code === 'CSV_QUOTE_NOT_CLOSED';
+    return fail([{
+      line: quote && unbalanced >= 0 ? unbalanced + 1 : e.lines ?? 1, column: null, value: null,
+      problem: quote ? 'A double quote opened here is never closed.' : `The file is not valid CSV (${e.code ?? 'parse error'}).`,
+      fix: 'Check quotes and separators (comma-separated, double quotes around text with commas).',
+    }]);
   }
   if (rows.length === 0) return fail([{ line: 1, column: null, value: null, problem: 'The file is empty.', fix: 'Upload a CSV with a header row and one row a year.' }]);
   if (rows.length - 1 > MAX_ROWS) return fail([{ line: MAX_ROWS + 2, column: null, value: null, problem: `More than ${MAX_ROWS} years.`, fix: 'Split the file or check that it is an annual series.' }]);
@@ -42,6 +48,7 @@ export function parseStockCsv(text: string): CsvResult {
   const col = (name: string) => header.indexOf(name);
   const data = rows.slice(1);
   const years: number[] = [];
+  let previousValid = true;
   const cells = new Map<string, (number | null)[]>([...catchCols, ...indexCols, ...header.filter((h) => h.endsWith('_cv'))].map((c) => [c, []]));
 
   data.forEach((row, i) => {
@@ -52,12 +59,18 @@ export function parseStockCsv(text: string): CsvResult {
     }
     const yText = row[col('year')]!;
     const year = Number(yText);
+    const last = years[years.length - 1];
+    const valid = yText !== '' && Number.isInteger(year) && year >= 1800 && year <= 2200;
     if (yText === '' || !Number.isInteger(year)) errors.push({ line, column: 'year', value: yText, problem: 'The year is not a whole number.', fix: 'Write the year as four digits, e.g. 1997.' });
-    else if (year < 1800 || year > 2200) errors.push({ line, column: 'year', value: yText, problem: 'The year is outside 1800–2200.', fix: 'Check the year column.' });
+    else if (!valid) errors.push({ line, column: 'year', value: yText, problem: 'The year is outside 1800–2200.', fix: 'Check the year column.' });
     else if (years.includes(year)) errors.push({ line, column: 'year', value: yText, problem: `Year ${year} appears twice.`, fix: 'Keep one row per year.' });
-    else if (years.length && year < years[years.length - 1]!) errors.push({ line, column: 'year', value: yText, problem: `Year ${year} comes after ${years[years.length - 1]}: years are not increasing.`, fix: 'Sort the rows by year.' });
-    else if (years.length && year !== years[years.length - 1]! + 1) errors.push({ line, column: 'year', value: yText, problem: `Years ${years[years.length - 1]! + 1}–${year - 1} are missing.`, fix: 'Add a row for each year; leave unknown values empty.' });
-    years.push(year);
+    else if (last !== undefined && year < last) errors.push({ line, column: 'year', value: yText, problem: `Year ${year} comes after ${last}: years are not increasing.`, fix: 'Sort the rows by year.' });
+    else if (last !== undefined && previousValid && year !== last + 1) {
+      const gap = year - 1 === last + 1 ? `Year ${last + 1} is missing.` : `Years ${last + 1}–${year - 1} are missing.`;
+      errors.push({ line, column: 'year', value: yText, problem: gap, fix: 'Add a row for each year; leave unknown values empty.' });
+    }
+    if (valid) years.push(year);
+    previousValid = valid;
     for (const [name, values] of cells) {
       const text = row[col(name)]!;
       if (text === '' || text.toUpperCase() === 'NA') { values.push(null); continue; }
