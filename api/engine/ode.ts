@@ -1,5 +1,5 @@
 /** ODE integration through odex (Gragg-Bulirsch-Stoer extrapolation), with collapse detection. */
-import odex from 'odex';
+import { Outcome, Solver } from 'odex';
 
 export type Rhs = (t: number, y: number[]) => number[];
 
@@ -21,12 +21,12 @@ export interface OdeResult {
   evaluations: number;
 }
 
-const solvers = new Map<number, odex.Solver>();
+const solvers = new Map<number, Solver>();
 
-function solverFor(n: number, tol: number, maxSteps: number, initialStep: number): odex.Solver {
+function solverFor(n: number, tol: number, maxSteps: number, initialStep: number): Solver {
   let s = solvers.get(n);
   if (!s) {
-    s = new odex.Solver(n);
+    s = new Solver(n);
     solvers.set(n, s);
   }
   s.relativeTolerance = tol;
@@ -53,7 +53,7 @@ export function integrate(f: Rhs, t0: number, y0: number[], t1: number, opts: Od
   const r = solver.solve(f, t0, y0, t1, out);
   const hit = collapseAt as { t: number; y: number[] } | null;
   if (hit) return { y: hit.y, t: hit.t, collapsed: true, evaluations: r.nEval };
-  if (r.outcome === odex.Outcome.MaxStepsExceeded || r.y.some((v) => !Number.isFinite(v))) {
+  if (r.outcome === Outcome.MaxStepsExceeded || r.y.some((v) => !Number.isFinite(v))) {
     throw new Error(`ODE integration failed at t=${r.xEnd} (steps exceeded or non-finite state)`);
   }
   return { y: r.y, t: t1, collapsed: false, evaluations: r.nEval };

@@ -39,7 +39,20 @@ ensureDebianPackages([
 const test = profile('test');
 const env: NodeJS.ProcessEnv = { ...process.env, ...test.env, CHROME_BIN: '/usr/bin/chromium', SCRATCH_DB_NAME: 'brinkmark_scratch' };
 
+/** A step that must exit 0 but counts no specs (the type checks). */
+function check(name: string, cmd: string, args: string[]): void {
+  console.log(`\n=== ${name} ===`);
+  const r = spawnSync(cmd, args, { cwd: ROOT, env, stdio: 'inherit' });
+  console.log(`${name}: ${r.status === 0 ? 'clean' : 'FAILED'}`);
+  results.push({ name, totals: { passed: 0, failed: 0 }, exit: r.status ?? 1 });
+}
+
 try {
+  if (!only) {
+    const tsc = join(ROOT, 'node_modules', '.bin', 'tsc');
+    check('type check (server and engine)', tsc, ['-p', 'tsconfig.api.json', '--noEmit']);
+    check('type check (client)', tsc, ['-p', 'tsconfig.app.json', '--noEmit']);
+  }
   if (only !== 'client') {
     await startMariaDb(test.server);
     ensureDatabase(test.server, test.db, true);
