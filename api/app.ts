@@ -8,6 +8,10 @@ import session from 'express-session';
 import helmet from 'helmet';
 import type { Sequelize } from 'sequelize';
 import { auditRoutes } from './audit/audit.routes';
+import { datasetRoutes, stockDatasetRoutes } from './datasets/dataset.routes';
+import { proposalRoutes, stockProposalRoutes } from './proposals/proposal.routes';
+import { RunQueue } from './runs/run-queue';
+import { runRoutes, stockRunRoutes } from './runs/run.routes';
 import { authRoutes } from './auth/auth.routes';
 import { createPassport } from './auth/passport';
 import type { Config } from './config';
@@ -27,15 +31,23 @@ export interface ApiMount {
 export interface AppDeps {
   config: Config;
   sequelize: Sequelize;
+  /** The queue that runs model runs in worker threads (one is made when not given). */
+  runQueue?: RunQueue;
 }
 
 /** Every API router and where it is mounted: the role matrix test walks this list. */
-export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>): ApiMount[] {
+export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>, queue: RunQueue): ApiMount[] {
   return [
     { base: '/api/auth', router: authRoutes(config, passport) },
     { base: '/api/users', router: userRoutes(sequelize) },
     { base: '/api/regions', router: regionRoutes() },
     { base: '/api/stocks', router: stockRoutes() },
+    { base: '/api/stocks/:stockId/datasets', router: stockDatasetRoutes(sequelize) },
+    { base: '/api/stocks/:stockId/runs', router: stockRunRoutes(sequelize, queue) },
+    { base: '/api/stocks/:stockId/proposals', router: stockProposalRoutes(sequelize) },
+    { base: '/api/datasets', router: datasetRoutes(sequelize) },
+    { base: '/api/runs', router: runRoutes(sequelize, queue) },
+    { base: '/api/proposals', router: proposalRoutes(sequelize) },
     { base: '/api/audit-events', router: auditRoutes() },
   ];
 }
@@ -89,7 +101,9 @@ export function createApp(deps: AppDeps): express.Express {
   app.use(passport.session());
   app.use('/api', csrfProtection);
 
-  const mounts = apiMounts(deps, passport);
+  const queue = deps.runQueue ?? new RunQueue();
+  app.locals.runQueue = queue;
+  const mounts = apiMounts(deps, passport, queue);
   app.locals.apiMounts = mounts;
   for (const m of mounts) app.use(m.base, m.router);
   app.use('/api', apiNotFound);

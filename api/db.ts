@@ -4,11 +4,14 @@ import { Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import type { Config } from './config';
 import { AuditEvent } from './audit/audit-event.model';
+import { Dataset } from './datasets/dataset.model';
+import { Proposal } from './proposals/proposal.model';
+import { Run } from './runs/run.model';
 import { Region } from './regions/region.model';
 import { Stock } from './stocks/stock.model';
 import { User } from './users/user.model';
 
-const models = [User, Region, Stock, AuditEvent];
+const models = [User, Region, Stock, AuditEvent, Dataset, Run, Proposal];
 
 /**
  * Opens a pool to the configured MariaDB database and registers every model on it. Models are

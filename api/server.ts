@@ -2,11 +2,14 @@
 import { createApp } from './app';
 import { loadConfig } from './config';
 import { createSequelize, schemaMigrator } from './db';
+import { RunQueue } from './runs/run-queue';
 
 const config = loadConfig();
 const sequelize = createSequelize(config);
 await sequelize.authenticate();
 await schemaMigrator(sequelize).up();
+const interrupted = await RunQueue.recoverInterrupted();
+if (interrupted) console.log(`${interrupted} run(s) interrupted by the last stop were marked failed.`);
 const app = createApp({ config, sequelize });
 const server = app.listen(config.PORT, config.HOST, () => {
   console.log(`Brinkmark is serving on http://${config.HOST}:${config.PORT}`);

@@ -1,18 +1,14 @@
 /** Runs a bootstrap across worker threads, with progress events and cancellation through an AbortSignal. */
 import { availableParallelism } from 'node:os';
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import type { BootstrapRequest, Replicate } from './bootstrap';
+import { tsWorker } from './ts-worker';
 
 export interface PoolOptions {
   workers?: number;
   onProgress?: (done: number, total: number) => void;
   signal?: AbortSignal;
 }
-
-// why: Node 20 workers ignore `--import tsx`, so each worker registers tsx itself, then loads the TypeScript entry
-const WORKER_BOOT = `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(
-  new URL('./bootstrap-worker.ts', import.meta.url).href,
-)}); })`;
 
 export class BootstrapCancelled extends Error {
   constructor() {
@@ -40,7 +36,7 @@ export function bootstrapInWorkers(req: BootstrapRequest, opts: PoolOptions = {}
     opts.signal?.addEventListener('abort', () => fail(new BootstrapCancelled()), { once: true });
     let offset = req.offset ?? 0;
     sizes.forEach((size, i) => {
-      const worker = new Worker(WORKER_BOOT, { eval: true, workerData: { ...req, replicates: size, offset } });
+      const worker = tsWorker(new URL('./bootstrap-worker.ts', import.meta.url), { ...req, replicates: size, offset });
       offset += size;
       workers.push(worker);
       worker.on('message', (msg: { type: 'progress'; done: number } | { type: 'done'; replicates: Replicate[] }) => {

@@ -1,0 +1,80 @@
+/** Dataset versions: checked in full before anything is stored; every version kept, never overwritten. */
+import { parse } from 'csv-parse/sync';
+import type { Sequelize } from 'sequelize';
+import { recordAudit } from '../audit/audit.service';
+import { parseStockCsv } from '../engine/csv';
+import { HttpError, NotFoundError } from '../http/http-error';
+import { Stock } from '../stocks/stock.model';
+import { User } from '../users/user.model';
+import { Dataset } from './dataset.model';
+import type { CsvCheck, DatasetView } from './dataset.schemas';
+
+/** Raw cells for the preview table (best effort: empty when the text is not CSV at all). */
+function rawTable(csv: string): { header: string[]; rows: string[][] } {
+  try {
+    const all = parse(csv, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true, relax_quotes: true }) as string[][];
+    return { header: all[0] ?? [], rows: all.slice(1) };
+  } catch {
+    return { header: [], rows: [] };
+  }
+}
+
+export class DatasetService {
+  constructor(private readonly sequelize: Sequelize) {}
+
+  /** Parses a CSV without storing it. */
+  check(csv: string): CsvCheck {
+    const table = rawTable(csv);
+    const r = parseStockCsv(csv);
+    return r.ok ? { ok: true, kind: r.kind, series: r.series, ...table } : { ok: false, errors: r.errors, ...table };
+  }
+
+  async list(stockId: number): Promise<DatasetView[]> {
+    await this.stock(stockId);
+    const rows = await Dataset.findAll({ where: { stockId }, order: [['version', 'DESC']] });
+    const names = await this.names(rows.map((r) => r.createdBy));
+    return rows.map((r) => r.toView(names.get(r.createdBy) ?? null));
+  }
+
+  async get(id: number): Promise<{ dataset: DatasetView; check: CsvCheck; csv: string }> {
+    const d = await Dataset.findByPk(id);
+    if (!d) throw new NotFoundError('Dataset');
+    const names = await this.names([d.createdBy]);
+    return { dataset: d.toView(names.get(d.createdBy) ?? null), check: this.check(d.csvText), csv: d.csvText };
+  }
+
+  /** Stores a clean file as the stock's next version, with its audit entry, in one transaction. */
+  async create(actorId: number, stockId: number, csv: string, note: string): Promise<DatasetView> {
+    const stock = await this.stock(stockId);
+    const parsed = parseStockCsv(csv);
+    if (!parsed.ok) {
+      throw new HttpError(422, 'DATASET_ROWS_INVALID', `The file has ${parsed.errors.length} problem(s); nothing was saved.`, undefined, { problems: parsed.errors });
+    }
+    if (parsed.kind !== stock.kind) {
+      const want = stock.kind === 'single' ? 'a "catch" column' : '"prey_catch" and "predator_catch" columns';
+      throw new HttpError(422, 'DATASET_KIND_MISMATCH', `${stock.name} is a ${stock.kind === 'single' ? 'single' : 'linked predator-prey'} stock: the file needs ${want}.`);
+    }
+    return this.sequelize.transaction(async (t) => {
+      await Stock.findByPk(stockId, { transaction: t, lock: t.LOCK.UPDATE });
+      const version = ((await Dataset.max<number, Dataset>('version', { where: { stockId }, transaction: t })) ?? 0) + 1;
+      const s = parsed.series;
+      const d = await Dataset.create({
+        stockId, version, note, kind: parsed.kind, csvText: csv, firstYear: s.years[0]!, lastYear: s.years[s.years.length - 1]!,
+        indexNames: s.indices.map((i) => i.name), createdBy: actorId,
+      }, { transaction: t });
+      await recordAudit({ actorId, action: 'dataset.create', entityType: 'dataset', entityId: d.id, after: { stockId, version, note, years: s.years.length } }, t);
+      return d.toView();
+    });
+  }
+
+  private async stock(id: number): Promise<Stock> {
+    const s = await Stock.findByPk(id);
+    if (!s) throw new NotFoundError('Stock');
+    return s;
+  }
+
+  private async names(ids: number[]): Promise<Map<number, string>> {
+    const users = await User.findAll({ where: { id: [...new Set(ids)] }, attributes: ['id', 'name'] });
+    return new Map(users.map((u) => [u.id, u.name]));
+  }
+}

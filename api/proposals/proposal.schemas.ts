@@ -1,0 +1,61 @@
+/** Contract of the proposals API: shared with the client through `import type`. */
+import { z } from 'zod';
+
+export const createProposalSchema = z.object({
+  runId: z.number().int().positive(),
+  quota: z.number().positive('the quota must be above zero').max(1e9),
+  rationale: z.string().trim().min(20, 'give the reasoning in at least 20 characters').max(5000),
+}).strict();
+
+export const updateProposalSchema = z.object({
+  quota: z.number().positive('the quota must be above zero').max(1e9).optional(),
+  rationale: z.string().trim().min(20, 'give the reasoning in at least 20 characters').max(5000).optional(),
+}).strict().refine((v) => v.quota !== undefined || v.rationale !== undefined, { message: 'nothing to change' });
+
+export type CreateProposalBody = z.infer<typeof createProposalSchema>;
+export type UpdateProposalBody = z.infer<typeof updateProposalSchema>;
+
+export interface CandidateFigures {
+  catchLevel: number;
+  pPassFold: number;
+  pBelowLimit: number;
+  medianEnd: number;
+  lowerEnd: number;
+  upperEnd: number;
+  returnRate: number;
+}
+
+/** The figures frozen with a proposal, all computed by the engine from its run. */
+export interface ProposalFigures {
+  unit: string;
+  model: string;
+  foldHarvest: { median: number; lower5: number; upper95: number };
+  marginToFold: { absolute: number; fraction: number };
+  marginToFoldLower: { absolute: number; fraction: number };
+  msy: number;
+  bOverBmsy: number;
+  fOverFmsy: number;
+  risk: number;
+  projectionYears: number;
+  limitFraction: number;
+  atQuota: CandidateFigures;
+  candidates: CandidateFigures[];
+  /** Catch the run's rule proposed (fold risk and ramp rule). */
+  engineProposal: number;
+}
+
+export interface ProposalView {
+  id: number;
+  stockId: number;
+  runId: number;
+  revisesId: number | null;
+  status: 'draft' | 'submitted';
+  quota: number;
+  rationale: string;
+  figures: ProposalFigures;
+  createdBy: number;
+  createdByName: string | null;
+  submittedAt: string | null;
+  createdAt: string;
+  updatedAt: string;
+}

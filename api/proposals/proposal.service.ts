@@ -1,0 +1,122 @@
+/** Quota proposals: figures computed from the run by the engine; submitted proposals are frozen. */
+import type { Sequelize, Transaction } from 'sequelize';
+import { recordAudit } from '../audit/audit.service';
+import { project } from '../engine/projection';
+import type { SurplusModelName } from '../engine/surplus';
+import { ConflictError, HttpError, NotFoundError } from '../http/http-error';
+import { Run } from '../runs/run.model';
+import type { SurplusRunResults } from '../runs/run.schemas';
+import { Stock } from '../stocks/stock.model';
+import { User } from '../users/user.model';
+import { Proposal } from './proposal.model';
+import type { CandidateFigures, CreateProposalBody, ProposalFigures, ProposalView, UpdateProposalBody } from './proposal.schemas';
+
+async function surplusResults(runId: number): Promise<{ run: Run; results: SurplusRunResults }> {
+  const run = await Run.findByPk(runId);
+  if (!run) throw new NotFoundError('Run');
+  const results = run.results ? (JSON.parse(run.results) as SurplusRunResults) : null;
+  if (run.status !== 'succeeded' || results?.kind !== 'surplus' || !results.quota || !results.bootstrap) {
+    throw new HttpError(422, 'RUN_NOT_PROPOSABLE', 'A proposal needs a finished single-stock run with a bootstrap (at least 100 replicates).');
+  }
+  return { run, results };
+}
+
+/** Engine figures for a quota: margin to the fold, risks and projections, from the run's bootstrap draws. */
+export function figuresFor(run: Run, results: SurplusRunResults, quota: number, unit: string): ProposalFigures {
+  const o = run.options;
+  const draws = results.bootstrap!.draws;
+  const at = (catchLevel: number, i: number): CandidateFigures => {
+    const p = project({ model: run.model as SurplusModelName, replicates: draws, catchLevel, years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed + 101 + i });
+    return {
+      catchLevel, pPassFold: p.pPassFold, pBelowLimit: p.pBelowLimit, returnRate: p.returnRate,
+      medianEnd: p.median[p.median.length - 1]!, lowerEnd: p.lower[p.lower.length - 1]!, upperEnd: p.upper[p.upper.length - 1]!,
+    };
+  };
+  const { median, lower5, upper95 } = results.quota!.proposal.hStar;
+  return {
+    unit, model: run.model, foldHarvest: { median, lower5, upper95 },
+    marginToFold: { absolute: median - quota, fraction: (median - quota) / median },
+    marginToFoldLower: { absolute: lower5 - quota, fraction: (lower5 - quota) / lower5 },
+    msy: results.fit.reference.msy, bOverBmsy: results.fit.status.bOverBmsy, fOverFmsy: results.fit.status.fOverFmsy,
+    risk: o.risk, projectionYears: o.years, limitFraction: o.limitFraction, atQuota: at(quota, 0),
+    candidates: results.quota!.candidates.map((c) => ({
+      catchLevel: c.catchLevel, pPassFold: c.pPassFold, pBelowLimit: c.pBelowLimit, returnRate: c.returnRate,
+      medianEnd: c.median[c.median.length - 1]!, lowerEnd: c.lower[c.lower.length - 1]!, upperEnd: c.upper[c.upper.length - 1]!,
+    })),
+    engineProposal: results.quota!.proposal.proposed,
+  };
+}
+
+export class ProposalService {
+  constructor(private readonly sequelize: Sequelize) {}
+
+  async create(actorId: number, body: CreateProposalBody, revisesId: number | null = null): Promise<ProposalView> {
+    const { run, results } = await surplusResults(body.runId);
+    const stock = await Stock.findByPk(run.stockId);
+    const figures = figuresFor(run, results, body.quota, stock!.unit);
+    return this.sequelize.transaction(async (t) => {
+      const p = await Proposal.create({
+        stockId: run.stockId, runId: run.id, revisesId, status: 'draft', quota: body.quota, rationale: body.rationale,
+        figures, createdBy: actorId, submittedAt: null,
+      }, { transaction: t });
+      await recordAudit({ actorId, action: revisesId ? 'proposal.revise' : 'proposal.create', entityType: 'proposal', entityId: p.id, after: { quota: p.quota, runId: run.id, revisesId } }, t);
+      return this.view(p, t);
+    });
+  }
+
+  async update(actorId: number, id: number, body: UpdateProposalBody): Promise<ProposalView> {
+    return this.sequelize.transaction(async (t) => {
+      const p = await this.draft(id, t);
+      const before = { quota: p.quota, rationale: p.rationale };
+      const quota = body.quota ?? p.quota;
+      if (body.quota !== undefined) {
+        const { run, results } = await surplusResults(p.runId);
+        p.figures = figuresFor(run, results, quota, p.figures.unit);
+      }
+      await p.update({ quota, rationale: body.rationale ?? p.rationale, figures: p.figures }, { transaction: t });
+      await recordAudit({ actorId, action: 'proposal.update', entityType: 'proposal', entityId: id, before, after: { quota: p.quota, rationale: p.rationale } }, t);
+      return this.view(p, t);
+    });
+  }
+
+  /** Freezes a draft and hands it to the board. */
+  async submit(actorId: number, id: number): Promise<ProposalView> {
+    return this.sequelize.transaction(async (t) => {
+      const p = await this.draft(id, t);
+      await p.update({ status: 'submitted', submittedAt: new Date() }, { transaction: t });
+      await recordAudit({ actorId, action: 'proposal.submit', entityType: 'proposal', entityId: id, before: { status: 'draft' }, after: { status: 'submitted', quota: p.quota } }, t);
+      return this.view(p, t);
+    });
+  }
+
+  /** A new draft that starts from a submitted proposal (the submitted one stays as it was). */
+  async revise(actorId: number, id: number): Promise<ProposalView> {
+    const p = await Proposal.findByPk(id);
+    if (!p) throw new NotFoundError('Proposal');
+    return this.create(actorId, { runId: p.runId, quota: p.quota, rationale: p.rationale }, p.id);
+  }
+
+  async get(id: number): Promise<ProposalView> {
+    const p = await Proposal.findByPk(id);
+    if (!p) throw new NotFoundError('Proposal');
+    return this.view(p);
+  }
+
+  async listForStock(stockId: number, viewer: Express.User): Promise<ProposalView[]> {
+    const where = viewer.role === 'board' ? { stockId, status: 'submitted' as const } : { stockId };
+    const rows = await Proposal.findAll({ where, order: [['id', 'DESC']] });
+    return Promise.all(rows.map((p) => this.view(p)));
+  }
+
+  private async draft(id: number, t: Transaction): Promise<Proposal> {
+    const p = await Proposal.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!p) throw new NotFoundError('Proposal');
+    if (p.status !== 'draft') throw new ConflictError('PROPOSAL_FROZEN', 'This proposal has been submitted and is frozen; revise it to make a new draft.');
+    return p;
+  }
+
+  private async view(p: Proposal, t?: Transaction): Promise<ProposalView> {
+    const u = await User.findByPk(p.createdBy, { attributes: ['name'], transaction: t });
+    return p.toView(u?.name ?? null);
+  }
+}
