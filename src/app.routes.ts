@@ -15,6 +15,30 @@ export const routes: Routes = [
         title: 'Stocks · Brinkmark',
       },
       {
+        path: 'stocks/:id',
+        canMatch: [roleGuard('admin', 'assessor', 'board')],
+        loadComponent: () => import('./stocks/stock-detail').then((m) => m.StockDetail),
+        title: 'Stock · Brinkmark',
+      },
+      {
+        path: 'runs/:id',
+        canMatch: [roleGuard('admin', 'assessor', 'board')],
+        loadComponent: () => import('./runs/run-page').then((m) => m.RunPage),
+        title: 'Model run · Brinkmark',
+      },
+      {
+        path: 'proposals/new',
+        canMatch: [roleGuard('assessor')],
+        loadComponent: () => import('./proposals/proposal-page').then((m) => m.ProposalPage),
+        title: 'New proposal · Brinkmark',
+      },
+      {
+        path: 'proposals/:id',
+        canMatch: [roleGuard('admin', 'assessor', 'board')],
+        loadComponent: () => import('./proposals/proposal-page').then((m) => m.ProposalPage),
+        title: 'Proposal · Brinkmark',
+      },
+      {
         path: 'admin/users',
         canMatch: [roleGuard('admin')],
         loadComponent: () => import('./admin/user-admin').then((m) => m.UserAdmin),

@@ -61,7 +61,17 @@ try {
       ['--import', 'tsx', join(ROOT, 'node_modules', 'jasmine', 'bin', 'jasmine.js'), '--config=test/jasmine.json'],
       env, join(DATA, 'jasmine-result.json'));
   }
-  if (only !== 'api') {
+  if (!only || only === 'e2e') {
+    check('client build (for end-to-end)', join(ROOT, 'node_modules', '.bin', 'ng'), ['build']);
+    if (only === 'e2e') {
+      await startMariaDb(test.server);
+      ensureDatabase(test.server, { ...test.db, name: 'brinkmark_scratch' }, true);
+    }
+    run('end-to-end (Chromium)', process.execPath,
+      ['--import', 'tsx', join(ROOT, 'node_modules', 'jasmine', 'bin', 'jasmine.js'), '--config=test/jasmine-e2e.json'],
+      { ...env, JASMINE_RESULT_FILE: 'e2e-result.json' }, join(DATA, 'e2e-result.json'));
+  }
+  if (only !== 'api' && only !== 'e2e') {
     run('client specs', join(ROOT, 'node_modules', '.bin', 'ng'), ['test', '--watch=false'], env, join(DATA, 'karma-result.json'));
   }
 } finally {

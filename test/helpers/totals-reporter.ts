@@ -15,6 +15,6 @@ jasmine.getEnv().addReporter({
     if (r.overallStatus === 'failed' && totals.failed === 0) totals.error = true;
     const dir = resolve(import.meta.dirname, '..', '..', '.data');
     mkdirSync(dir, { recursive: true });
-    writeFileSync(join(dir, 'jasmine-result.json'), JSON.stringify(totals));
+    writeFileSync(join(dir, process.env.JASMINE_RESULT_FILE ?? 'jasmine-result.json'), JSON.stringify(totals));
   },
 });

@@ -1,0 +1,115 @@
+import { DatePipe, DecimalPipe, PercentPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { FormsModule } from '@angular/forms';
+import { Router, RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { firstValueFrom } from 'rxjs';
+import type { ProposalView } from '../../api/proposals/proposal.schemas';
+import type { SurplusRunResults } from '../../api/runs/run.schemas';
+import { AuthStore } from '../core/auth/auth-store';
+import { ApiError } from '../core/errors/api-error';
+import { Notifier } from '../core/errors/notifier';
+import { RunApi, type RunDetail } from '../runs/run-api';
+import { BifurcationChart, type BifurcationData } from '../shared/charts/bifurcation-chart';
+import { ChartFrame } from '../shared/charts/chart-frame';
+import { ModelNamePipe } from '../shared/sig.pipe';
+import { ProposalApi } from './proposal-api';
+
+/** Drafts a proposal from a run (route proposals/new?run=ID) or shows, edits and submits one (proposals/:id). */
+@Component({
+  selector: 'bm-proposal-page',
+  imports: [FormsModule, RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, ChartFrame, BifurcationChart],
+  templateUrl: './proposal-page.html',
+  styleUrl: './proposal-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ProposalPage {
+  readonly id = input<string>();
+  readonly run = input<string>();
+  private readonly api = inject(ProposalApi);
+  private readonly runs = inject(RunApi);
+  private readonly router = inject(Router);
+  private readonly notifier = inject(Notifier);
+  protected readonly auth = inject(AuthStore);
+  protected readonly proposal = signal<ProposalView | null>(null);
+  protected readonly runDetail = signal<RunDetail | null>(null);
+  protected readonly busy = signal(false);
+  protected readonly fields = signal<Record<string, string[]>>({});
+  protected quota = 0;
+  protected rationale = '';
+  protected readonly results = computed(() => this.runDetail()?.results as SurplusRunResults | undefined);
+  protected readonly editable = computed(() => this.auth.hasRole('assessor') && (this.proposal()?.status ?? 'draft') === 'draft');
+  protected readonly chart = signal<BifurcationData | null>(null);
+
+  constructor() {
+    effect(() => void this.load(this.id(), this.run()));
+  }
+
+  private async load(id: string | undefined, runId: string | undefined): Promise<void> {
+    const p = id && id !== 'new' ? await firstValueFrom(this.api.get(Number(id))) : null;
+    this.proposal.set(p);
+    const rid = p?.runId ?? Number(runId);
+    if (!rid) return;
+    const detail = await firstValueFrom(this.runs.get(rid));
+    this.runDetail.set(detail);
+    const r = detail.results as SurplusRunResults;
+    this.quota = p?.quota ?? Math.round(r.quota?.proposal.proposed ?? 0);
+    this.rationale = p?.rationale ?? '';
+    this.redraw();
+  }
+
+  protected redraw(): void {
+    const r = this.results();
+    if (!r) return;
+    this.chart.set({
+      table: r.fold.table, hStar: r.fold.hStar, bFold: r.fold.bFold, unit: this.proposal()?.figures.unit ?? 't',
+      band: r.bootstrap ? { p5: r.bootstrap.hStar.p5, p95: r.bootstrap.hStar.p95 } : null,
+      catches: r.fit.years.map((year, i) => ({ year, catch: r.fit.catches[i]! })), quota: this.quota || null,
+    });
+  }
+
+  protected async save(): Promise<void> {
+    await this.act(async () => {
+      const p = this.proposal();
+      const saved = p
+        ? await firstValueFrom(this.api.update(p.id, { quota: this.quota, rationale: this.rationale }))
+        : await firstValueFrom(this.api.create(this.runDetail()!.run.id, this.quota, this.rationale));
+      this.proposal.set(saved);
+      this.notifier.info('Draft saved; the figures were recomputed for this quota.');
+      if (!p) void this.router.navigate(['/proposals', saved.id], { replaceUrl: true });
+    });
+  }
+
+  protected async submit(): Promise<void> {
+    await this.act(async () => {
+      const p = this.proposal()!;
+      if (p.quota !== this.quota || p.rationale !== this.rationale) await firstValueFrom(this.api.update(p.id, { quota: this.quota, rationale: this.rationale }));
+      this.proposal.set(await firstValueFrom(this.api.submit(p.id)));
+      this.notifier.info('Submitted to the quota board. The proposal is now frozen.');
+    });
+  }
+
+  protected async revise(): Promise<void> {
+    await this.act(async () => {
+      const draft = await firstValueFrom(this.api.revise(this.proposal()!.id));
+      void this.router.navigate(['/proposals', draft.id]);
+    });
+  }
+
+  private async act(f: () => Promise<void>): Promise<void> {
+    this.busy.set(true);
+    try {
+      await f();
+      this.fields.set({});
+    } catch (err) {
+      if (err instanceof ApiError) this.fields.set(err.fields);
+      this.notifier.error(err instanceof Error ? err.message : 'That did not work.');
+    } finally {
+      this.busy.set(false);
+    }
+  }
+}

@@ -1,0 +1,78 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import type { PredatorPreyRunResults } from '../../api/runs/run.schemas';
+import { ChartFrame } from '../shared/charts/chart-frame';
+import { SigPipe } from '../shared/sig.pipe';
+import { PALETTE } from '../shared/charts/chart-kit';
+import { PhasePlaneChart, type PhasePlaneData } from '../shared/charts/phase-plane-chart';
+import { SeriesChart, type SeriesLine } from '../shared/charts/series-chart';
+
+/** A linked-stock run: estimates, the equilibrium and its eigenvalues, bifurcations in each catch, phase plane and series. */
+@Component({
+  selector: 'bm-predator-prey-results',
+  imports: [DecimalPipe, SigPipe, MatIconModule, ChartFrame, PhasePlaneChart, SeriesChart],
+  template: `
+    <p class="bm-caution"><mat-icon>gavel</mat-icon>These figures are scientific advice to a competent authority, subject to local regulation and licensed practice.</p>
+    @for (w of results().fit.convergence.warnings; track $index) { <div class="bm-warn"><mat-icon>warning_amber</mat-icon>{{ w }}</div> }
+    <div class="bm-two">
+      <bm-chart-frame title="Phase plane" subtitle="Fitted trajectory with both nullclines and the equilibrium" fileName="phase-plane">
+        <bm-phase-plane-chart [data]="phase()" />
+      </bm-chart-frame>
+      <bm-chart-frame title="Both populations" subtitle="Fitted biomass of prey and predator" fileName="predator-prey-series">
+        <bm-series-chart [years]="years()" [lines]="lines()" [yLabel]="'Biomass (' + unit() + ')'" />
+      </bm-chart-frame>
+    </div>
+    <div class="bm-two">
+      <section class="bm-card">
+        <h3>Estimates</h3>
+        <table class="bm-est"><thead><tr><th></th><th>Estimate</th><th>95% (Hessian)</th></tr></thead><tbody>
+          @for (e of results().fit.estimates; track e.name) {
+            <tr><td>{{ e.name }}</td><td>{{ e.value | sig }}</td><td>@if (e.ci95; as c) { {{ c[0] | sig }} – {{ c[1] | sig }} } @else { — }</td></tr>
+          }
+        </tbody></table>
+        @if (results().fit.equilibrium; as eq) {
+          <p>Equilibrium without harvest: prey {{ eq.prey | number: '1.0-0' }}, predator {{ eq.predator | number: '1.0-0' }} {{ unit() }},
+            <strong>{{ eq.stable ? 'stable' : 'unstable' }}</strong>; eigenvalues {{ eq.eigen.re[0] | number: '1.3-3' }} ± {{ eq.eigen.im[0] | number: '1.3-3' }}i.</p>
+        }
+      </section>
+      <section class="bm-card" data-testid="bifurcation-events">
+        <h3>Bifurcations as catch rises</h3>
+        <table class="bm-est"><thead><tr><th>Catch of</th><th>Kind</th><th>At catch ({{ unit() }}/yr)</th><th>Prey</th><th>Predator</th></tr></thead><tbody>
+          @for (e of events(); track $index) {
+            <tr><td>{{ e.of }}</td><td>{{ e.label }}</td><td>{{ e.h | number: '1.0-0' }}</td><td>{{ e.x[0] | number: '1.0-0' }}</td><td>{{ e.x[1] | number: '1.0-0' }}</td></tr>
+          } @empty { <tr><td colspan="5">No bifurcation up to four times the largest historical catch.</td></tr> }
+        </tbody></table>
+        <p class="bm-small">Fold: stable and unstable equilibria meet and vanish. Hopf: the equilibrium turns into a limit cycle. Boundary: a species reaches zero (transcritical with the extinction equilibrium).</p>
+      </section>
+    </div>
+  `,
+  styles: `:host { display: flex; flex-direction: column; gap: 16px; } .bm-two { display: grid; grid-template-columns: 1fr 1fr; gap: 16px; }
+    .bm-card { background: #fff; border: 1px solid var(--bm-line); border-radius: 8px; padding: 12px 16px; } h3 { margin: 0 0 8px; font-size: 16px; color: var(--bm-ink); }
+    .bm-est { width: 100%; border-collapse: collapse; font-size: 13.5px; } .bm-est th { text-align: left; color: var(--bm-muted); border-bottom: 1px solid var(--bm-line); padding: 4px 6px; }
+    .bm-est td { padding: 4px 6px; border-bottom: 1px solid #f0f3f4; } .bm-small { color: var(--bm-muted); font-size: 12.5px; }
+    .bm-caution, .bm-warn { display: flex; gap: 8px; align-items: center; margin: 0; color: var(--bm-muted); font-size: 13px; } .bm-warn { color: #8a5a00; }
+    @media (max-width: 1100px) { .bm-two { grid-template-columns: 1fr; } }`,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PredatorPreyResults {
+  readonly results = input.required<PredatorPreyRunResults>();
+  readonly unit = input('t');
+  protected readonly years = computed(() => this.results().years);
+  protected readonly phase = computed<PhasePlaneData>(() => {
+    const r = this.results();
+    return { prey: r.fit.prey, predator: r.fit.predator, years: r.years, preyNullcline: r.preyNullcline, predatorNullcline: r.predatorNullcline, equilibrium: r.fit.equilibrium, unit: this.unit() };
+  });
+  protected readonly lines = computed<SeriesLine[]>(() => [
+    { label: 'Prey', colour: PALETTE.prey, values: this.results().fit.prey },
+    { label: 'Predator', colour: PALETTE.predator, values: this.results().fit.predator },
+  ]);
+  protected readonly events = computed(() => {
+    const label = { fold: 'Fold', hopf: 'Hopf', boundary: 'Boundary' } as const;
+    const b = this.results().bifurcations;
+    return [
+      ...b.preyCatch.events.map((e) => ({ ...e, of: 'prey', label: label[e.kind] })),
+      ...b.predatorCatch.events.map((e) => ({ ...e, of: 'predator', label: label[e.kind] })),
+    ];
+  });
+}
