@@ -7,7 +7,16 @@ import express, { Router } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import type { Sequelize } from 'sequelize';
+import { advisoryRoutes } from './advisories/advisory.routes';
+import { AdvisoryPublisher } from './advisories/advisory.publisher';
+import { AdvisoryService } from './advisories/advisory.service';
 import { auditRoutes } from './audit/audit.routes';
+import { boardRoutes, proposalBoardRoutes } from './board/board.routes';
+import { BoardService } from './board/board.service';
+import { MailSender } from './mail/mail-sender';
+import { createStripe, SubscriptionService } from './subscriptions/subscription.service';
+import { stripeWebhookRoutes, subscriptionRoutes } from './subscriptions/subscription.routes';
+import { mailRoutes } from './mail/mail.routes';
 import { datasetRoutes, stockDatasetRoutes } from './datasets/dataset.routes';
 import { proposalRoutes, stockProposalRoutes } from './proposals/proposal.routes';
 import { RunQueue } from './runs/run-queue';
@@ -35,8 +44,17 @@ export interface AppDeps {
   runQueue?: RunQueue;
 }
 
+/** The long-lived services routes share. */
+interface Services {
+  queue: RunQueue;
+  mail: MailSender;
+  board: BoardService;
+  advisories: AdvisoryService;
+  subscriptions: SubscriptionService;
+}
+
 /** Every API router and where it is mounted: the role matrix test walks this list. */
-export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>, queue: RunQueue): ApiMount[] {
+export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>, { queue, mail, board, advisories, subscriptions }: Services): ApiMount[] {
   return [
     { base: '/api/auth', router: authRoutes(config, passport) },
     { base: '/api/users', router: userRoutes(sequelize) },
@@ -47,7 +65,12 @@ export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<t
     { base: '/api/stocks/:stockId/proposals', router: stockProposalRoutes(sequelize) },
     { base: '/api/datasets', router: datasetRoutes(sequelize) },
     { base: '/api/runs', router: runRoutes(sequelize, queue) },
-    { base: '/api/proposals', router: proposalRoutes(sequelize) },
+    { base: '/api/proposals', router: proposalRoutes(sequelize, mail) },
+    { base: '/api/proposals/:proposalId/board', router: proposalBoardRoutes(board) },
+    { base: '/api/board', router: boardRoutes(board) },
+    { base: '/api/advisories', router: advisoryRoutes(advisories) },
+    { base: '/api/admin/mail', router: mailRoutes(config) },
+    { base: '/api/subscriptions', router: subscriptionRoutes(subscriptions) },
     { base: '/api/audit-events', router: auditRoutes() },
   ];
 }
@@ -78,6 +101,17 @@ export function createApp(deps: AppDeps): express.Express {
       },
     },
   }));
+  const queue = deps.runQueue ?? new RunQueue();
+  const mail = new MailSender(config);
+  const publisher = new AdvisoryPublisher(mail, config.PUBLIC_URL);
+  const services: Services = {
+    queue, mail, board: new BoardService(sequelize, publisher), advisories: new AdvisoryService(sequelize, publisher),
+    subscriptions: new SubscriptionService(sequelize, createStripe(config), config),
+  };
+  Object.assign(app.locals, { runQueue: queue, mail });
+  // before the JSON parser, the session and the CSRF check: Stripe signs the raw body and sends no cookie
+  const webhook: ApiMount = { base: '/api/stripe', router: stripeWebhookRoutes(services.subscriptions) };
+  app.use(webhook.base, webhook.router);
   app.use(express.json({ limit: '1mb' }));
 
   const store = new SequelizeStore({ db: sequelize, tableName: 'sessions', checkExpirationInterval: 15 * 60_000 });
@@ -101,10 +135,8 @@ export function createApp(deps: AppDeps): express.Express {
   app.use(passport.session());
   app.use('/api', csrfProtection);
 
-  const queue = deps.runQueue ?? new RunQueue();
-  app.locals.runQueue = queue;
-  const mounts = apiMounts(deps, passport, queue);
-  app.locals.apiMounts = mounts;
+  const mounts = apiMounts(deps, passport, services);
+  app.locals.apiMounts = [webhook, ...mounts];
   for (const m of mounts) app.use(m.base, m.router);
   app.use('/api', apiNotFound);
 

@@ -18,6 +18,18 @@ const schema = z.object({
   SIGNIN_LIMIT_PER_15_MIN: z.coerce.number().int().positive().default(10),
   CLIENT_DIR: z.string().default('.data/dist/browser'),
   LOG_REQUESTS: bool.default(false),
+  PUBLIC_URL: z.string().url().default('http://127.0.0.1:4300'),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(4325),
+  SMTP_SECURE: bool.default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().default('Brinkmark advisories <advisories@corran-firth.example>'),
+  MAIL_FAKE_DIR: z.string().default('.data/mail'),
+  STRIPE_SECRET_KEY: z.string().default('sk_test_brinkmark_local'),
+  STRIPE_WEBHOOK_SECRET: z.string().default('whsec_brinkmark_local'),
+  /** Where the Stripe SDK sends API calls: empty for Stripe itself, or the local fake. */
+  STRIPE_API_BASE: z.string().default('http://127.0.0.1:4312'),
 });
 
 export type Config = z.infer<typeof schema>;

@@ -11,11 +11,13 @@ await schemaMigrator(sequelize).up();
 const interrupted = await RunQueue.recoverInterrupted();
 if (interrupted) console.log(`${interrupted} run(s) interrupted by the last stop were marked failed.`);
 const app = createApp({ config, sequelize });
+app.locals.mail.start();
 const server = app.listen(config.PORT, config.HOST, () => {
   console.log(`Brinkmark is serving on http://${config.HOST}:${config.PORT}`);
 });
 
 function shutdown(): void {
+  app.locals.mail.stop();
   server.close(() => {
     app.locals.sessionStore.stopExpiringSessions();
     void sequelize.close().then(() => process.exit(0));

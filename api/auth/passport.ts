@@ -14,12 +14,13 @@ declare global {
       name: string;
       role: Role;
       regionId: number | null;
+      boardChair: boolean;
     }
   }
 }
 
 function sessionUser(u: User): Express.User {
-  return { id: u.id, email: u.email, name: u.name, role: u.role, regionId: u.regionId };
+  return { id: u.id, email: u.email, name: u.name, role: u.role, regionId: u.regionId, boardChair: u.boardChair };
 }
 
 /** A passport instance of our own (not the global singleton), so several apps can run in one process. */

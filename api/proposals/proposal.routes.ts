@@ -1,5 +1,6 @@
 import { Router, type Request, type Response } from 'express';
 import type { Sequelize } from 'sequelize';
+import type { MailSender } from '../mail/mail-sender';
 import { requireRole } from '../http/auth';
 import { idParam, validateBody } from '../http/validate';
 import { createProposalSchema, updateProposalSchema } from './proposal.schemas';
@@ -17,8 +18,8 @@ function controller(proposals: ProposalService) {
 }
 
 /** Mounted at /api/proposals. */
-export function proposalRoutes(sequelize: Sequelize): Router {
-  const c = controller(new ProposalService(sequelize));
+export function proposalRoutes(sequelize: Sequelize, mail: MailSender): Router {
+  const c = controller(new ProposalService(sequelize, mail));
   const router = Router();
   router.post('/', requireRole('assessor'), validateBody(createProposalSchema), c.create);
   router.get('/:id', requireRole('assessor', 'board', 'admin'), c.get);

@@ -6,6 +6,8 @@ import type { SurplusModelName } from '../engine/surplus';
 import { ConflictError, HttpError, NotFoundError } from '../http/http-error';
 import { Run } from '../runs/run.model';
 import type { SurplusRunResults } from '../runs/run.schemas';
+import type { MailSender } from '../mail/mail-sender';
+import { OutboxMail } from '../mail/outbox.model';
 import { Stock } from '../stocks/stock.model';
 import { User } from '../users/user.model';
 import { Proposal } from './proposal.model';
@@ -48,7 +50,7 @@ export function figuresFor(run: Run, results: SurplusRunResults, quota: number, 
 }
 
 export class ProposalService {
-  constructor(private readonly sequelize: Sequelize) {}
+  constructor(private readonly sequelize: Sequelize, private readonly mail: MailSender | null = null) {}
 
   async create(actorId: number, body: CreateProposalBody, revisesId: number | null = null): Promise<ProposalView> {
     const { run, results } = await surplusResults(body.runId);
@@ -79,14 +81,26 @@ export class ProposalService {
     });
   }
 
-  /** Freezes a draft and hands it to the board. */
+  /** Freezes a draft and hands it to the board; each board member is e-mailed once it commits. */
   async submit(actorId: number, id: number): Promise<ProposalView> {
-    return this.sequelize.transaction(async (t) => {
+    const view = await this.sequelize.transaction(async (t) => {
       const p = await this.draft(id, t);
       await p.update({ status: 'submitted', submittedAt: new Date() }, { transaction: t });
       await recordAudit({ actorId, action: 'proposal.submit', entityType: 'proposal', entityId: id, before: { status: 'draft' }, after: { status: 'submitted', quota: p.quota } }, t);
+      const stock = (await Stock.findByPk(p.stockId, { transaction: t }))!;
+      const board = await User.findAll({ where: { role: 'board', active: true }, transaction: t });
+      for (const member of board) {
+        await OutboxMail.create({
+          dedupeKey: `proposal-submitted:${id}:user:${member.id}`, toAddress: member.email, advisoryId: null,
+          subject: `Quota proposal #${id} for ${stock.name} awaits the board`,
+          body: `A quota proposal of ${Math.round(p.quota).toLocaleString('en-GB')} ${p.figures.unit} per year for ${stock.name} was submitted. Margin to the fold: ${Math.round(p.figures.marginToFold.absolute).toLocaleString('en-GB')} ${p.figures.unit} (${(p.figures.marginToFold.fraction * 100).toFixed(1)}%).\n\nReview, comment and vote in Brinkmark.`,
+          lastError: null, messageId: null, nextAttemptAt: new Date(), sentAt: null,
+        }, { transaction: t });
+      }
       return this.view(p, t);
     });
+    this.mail?.kick();
+    return view;
   }
 
   /** A new draft that starts from a submitted proposal (the submitted one stays as it was). */

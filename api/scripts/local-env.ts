@@ -18,8 +18,8 @@ export function localSecret(name: string): string {
 export type Profile = 'demo' | 'test';
 
 const PROFILES = {
-  demo: { datadir: join(DATA, 'mariadb'), dbPort: 4306, db: 'brinkmark', appPort: 4300 },
-  test: { datadir: join(DATA, 'mariadb-test'), dbPort: 4316, db: 'brinkmark_test', appPort: 4320 },
+  demo: { datadir: join(DATA, 'mariadb'), dbPort: 4306, db: 'brinkmark', appPort: 4300, smtp: 4325, stripe: 4312, mailDir: join(DATA, 'mail') },
+  test: { datadir: join(DATA, 'mariadb-test'), dbPort: 4316, db: 'brinkmark_test', appPort: 4320, smtp: 4335, stripe: 4322, mailDir: join(DATA, 'mail-test') },
 } as const;
 
 /** The MariaDB server and process environment of a profile (demo data or tests). */
@@ -33,6 +33,12 @@ export function profile(name: Profile) {
     DB_USER: 'brinkmark',
     DB_PASSWORD: localSecret(`db-${name}`),
     SESSION_SECRET: localSecret(`session-${name}`),
+    PUBLIC_URL: `http://127.0.0.1:${process.env.PORT ?? p.appPort}`,
+    SMTP_PORT: String(p.smtp),
+    MAIL_FAKE_DIR: p.mailDir,
+    STRIPE_API_BASE: `http://127.0.0.1:${p.stripe}`,
+    STRIPE_WEBHOOK_SECRET: 'whsec_brinkmark_local',
   };
-  return { server: mariaDbServer(p.datadir, p.dbPort), env, db: { name: p.db, user: 'brinkmark', password: env.DB_PASSWORD } };
+  const fakes = { smtp: p.smtp, stripe: p.stripe, mailDir: p.mailDir, webhookUrl: `${env.PUBLIC_URL}/api/stripe/webhook`, stripeWebhookSecret: env.STRIPE_WEBHOOK_SECRET! };
+  return { server: mariaDbServer(p.datadir, p.dbPort), env, fakes, db: { name: p.db, user: 'brinkmark', password: env.DB_PASSWORD! } };
 }

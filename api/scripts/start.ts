@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../seeders/demo-people';
 import { loadConfig } from '../config';
 import { createSequelize, demoSeeder, schemaMigrator } from '../db';
+import { startFakes } from './fakes';
 import { ensureDatabase, startMariaDb, stopMariaDb } from './mariadb';
 import { DATA, ROOT, profile } from './local-env';
 
@@ -23,6 +24,9 @@ if (!existsSync(join(DATA, 'dist', 'browser', 'index.html')) || process.env.REBU
   execFileSync(join(ROOT, 'node_modules', '.bin', 'ng'), ['build'], { cwd: ROOT, stdio: 'inherit' });
 }
 
+const stopFakes = await startFakes(demo.fakes);
+console.log(`SMTP fake on 127.0.0.1:${demo.fakes.smtp} (messages in .data/mail); Stripe fake on 127.0.0.1:${demo.fakes.stripe}`);
+
 const server = spawn(process.execPath, ['--import', 'tsx', join(ROOT, 'api', 'server.ts')], {
   cwd: ROOT, stdio: 'inherit', env: process.env,
 });
@@ -37,6 +41,7 @@ function stop(): void {
 process.on('SIGINT', stop);
 process.on('SIGTERM', stop);
 server.on('exit', (code) => {
+  stopFakes();
   if (process.env.KEEP_DB !== 'true') stopMariaDb(demo.server);
   process.exit(code ?? 0);
 });

@@ -7,6 +7,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { ensureDebianPackages } from './debian';
+import { startFakes } from './fakes';
 import { ensureDatabase, startMariaDb, stopMariaDb } from './mariadb';
 import { DATA, ROOT, profile } from './local-env';
 
@@ -47,7 +48,9 @@ function check(name: string, cmd: string, args: string[]): void {
   results.push({ name, totals: { passed: 0, failed: 0 }, exit: r.status ?? 1 });
 }
 
+let stopFakes = () => {};
 try {
+  stopFakes = await startFakes(test.fakes, { fresh: true });
   if (!only) {
     const tsc = join(ROOT, 'node_modules', '.bin', 'tsc');
     check('type check (server and engine)', tsc, ['-p', 'tsconfig.api.json', '--noEmit']);
@@ -75,6 +78,7 @@ try {
     run('client specs', join(ROOT, 'node_modules', '.bin', 'ng'), ['test', '--watch=false'], env, join(DATA, 'karma-result.json'));
   }
 } finally {
+  stopFakes();
   stopMariaDb(test.server);
 }
 

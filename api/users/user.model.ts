@@ -12,6 +12,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare organisation: string | null;
   declare regionId: number | null;
   declare active: CreationOptional<boolean>;
+  declare boardChair: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -19,7 +20,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   toView(): UserView {
     return {
       id: this.id, email: this.email, name: this.name, role: this.role,
-      organisation: this.organisation, regionId: this.regionId, active: this.active,
+      organisation: this.organisation, regionId: this.regionId, active: this.active, boardChair: this.boardChair,
       createdAt: this.createdAt.toISOString(),
     };
   }
@@ -35,6 +36,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         organisation: { type: DataTypes.STRING(160), allowNull: true },
         regionId: { type: DataTypes.INTEGER, allowNull: true, field: 'region_id' },
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+        boardChair: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false, field: 'board_chair' },
         createdAt: { type: DataTypes.DATE, field: 'created_at' },
         updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
       },

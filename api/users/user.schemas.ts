@@ -31,5 +31,7 @@ export interface UserView {
   organisation: string | null;
   regionId: number | null;
   active: boolean;
+  /** Chairs the quota board: records its decisions. */
+  boardChair: boolean;
   createdAt: string;
 }

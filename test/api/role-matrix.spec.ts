@@ -43,10 +43,10 @@ describe('role matrix over every API route', () => {
     rows = routeTable(app);
   });
 
-  it('finds the routes and exactly the two public ones', () => {
+  it('finds the routes and exactly the three public ones', () => {
     expect(rows.length).toBeGreaterThan(8);
     const pub = rows.filter((r) => r.allowed === 'public').map((r) => `${r.method} ${r.path}`).sort();
-    expect(pub).toEqual(['GET /api/auth/csrf', 'POST /api/auth/sign-in']);
+    expect(pub).toEqual(['GET /api/auth/csrf', 'POST /api/auth/sign-in', 'POST /api/stripe/webhook']);
   });
 
   it('denies every guarded route to an anonymous caller with 401', async () => {

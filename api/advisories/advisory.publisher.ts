@@ -1,0 +1,77 @@
+/** Publishing an approved limit: the PDF, its SHA-256, the advisory row and the subscribers' e-mails, in the decision's transaction. */
+import { createHash } from 'node:crypto';
+import { Op, type Transaction } from 'sequelize';
+import { recordAudit } from '../audit/audit.service';
+import type { Decision } from '../board/board.models';
+import { project } from '../engine/projection';
+import type { SurplusModelName } from '../engine/surplus';
+import type { MailSender } from '../mail/mail-sender';
+import { OutboxMail } from '../mail/outbox.model';
+import { figuresFor } from '../proposals/proposal.service';
+import type { Proposal } from '../proposals/proposal.model';
+import { Region } from '../regions/region.model';
+import { Run } from '../runs/run.model';
+import type { SurplusRunResults } from '../runs/run.schemas';
+import { Stock } from '../stocks/stock.model';
+import { Subscription } from '../subscriptions/subscription.models';
+import { User } from '../users/user.model';
+import { Advisory } from './advisory.model';
+import { renderAdvisoryPdf } from './advisory-pdf';
+
+export class AdvisoryPublisher {
+  constructor(private readonly mail: MailSender, private readonly publicUrl: string) {}
+
+  /** Writes the advisory for an approved limit (and, for a correction, links it to the one it supersedes). */
+  async publish(p: { decision: Decision; proposal: Proposal; limit: number; override: boolean; actorId: number; supersedes?: { advisory: Advisory; reason: string } }, t: Transaction): Promise<Advisory> {
+    const { decision, proposal, limit, override, actorId } = p;
+    const supersedes = p.supersedes ?? null;
+    const run = (await Run.findByPk(proposal.runId, { transaction: t }))!;
+    const results = JSON.parse(run.results!) as SurplusRunResults;
+    const stock = (await Stock.findByPk(proposal.stockId, { transaction: t }))!;
+    const region = (await Region.findByPk(stock.regionId, { transaction: t }))!;
+    const chair = (await User.findByPk(decision.decidedBy, { transaction: t }))!;
+    const f = figuresFor(run, results, limit, stock.unit);
+    const o = run.options;
+    const proj = project({ model: run.model as SurplusModelName, replicates: results.bootstrap!.draws, catchLevel: limit, years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed + 7 });
+    const year = new Date().getUTCFullYear();
+    const seq = (await Advisory.count({ transaction: t })) + 1;
+    const docId = `BM-${year}-${stock.code.toUpperCase()}-${String(seq).padStart(4, '0')}`;
+    const publishedAt = new Date();
+    const pdf = await renderAdvisoryPdf({
+      docId, stockName: stock.name, regionName: region.name, unit: stock.unit, publishedAt, limit, proposalQuota: proposal.quota, override,
+      supersedes: supersedes ? { docId: supersedes.advisory.docId, reason: supersedes.reason } : null,
+      figures: {
+        marginAbs: f.marginToFold.absolute, marginFrac: f.marginToFold.fraction, marginLowerAbs: f.marginToFoldLower.absolute, marginLowerFrac: f.marginToFoldLower.fraction,
+        hStar: f.foldHarvest, msy: f.msy, bOverBmsy: f.bOverBmsy, fOverFmsy: f.fOverFmsy, pPassFold: f.atQuota.pPassFold, pBelowLimit: f.atQuota.pBelowLimit, projectionYears: f.projectionYears,
+      },
+      decision: { reason: decision.reason, votes: decision.votes, chairName: chair.name, decidedAt: decision.createdAt },
+      fold: { table: results.fold.table, hStar: results.fold.hStar, bFold: results.fold.bFold, band: { p5: results.bootstrap!.hStar.p5, p95: results.bootstrap!.hStar.p95 } },
+      catches: results.fit.catches,
+      projection: { startYear: results.fit.years[results.fit.years.length - 1]! + 1, median: proj.median, lower: proj.lower, upper: proj.upper, limitRef: o.limitFraction * results.fit.reference.bMsy },
+    });
+    const sha256 = createHash('sha256').update(pdf).digest('hex');
+    const title = `${stock.name}: ${Math.round(limit).toLocaleString('en-GB')} ${stock.unit} per year`;
+    const summary = `The quota board approved a harvest limit of ${Math.round(limit).toLocaleString('en-GB')} ${stock.unit} per year for ${stock.name} (${region.name}), ${Math.round(f.marginToFold.absolute).toLocaleString('en-GB')} ${stock.unit} (${(f.marginToFold.fraction * 100).toFixed(1)}%) below the median fold harvest.${override ? ' The limit was approved by override above the lower 5% of the fold harvest.' : ''}`;
+    const advisory = await Advisory.create({
+      docId, stockId: stock.id, regionId: region.id, decisionId: decision.id, supersedesId: supersedes?.advisory.id ?? null, supersededById: null,
+      approvedLimit: limit, override, title, summary, pdf, sha256, publishedBy: actorId,
+    }, { transaction: t });
+    if (supersedes) await Advisory.update({ supersededById: advisory.id }, { where: { id: supersedes.advisory.id }, transaction: t });
+    await recordAudit({ actorId, action: supersedes ? 'advisory.supersede' : 'advisory.publish', entityType: 'advisory', entityId: advisory.id, after: { docId, sha256, limit, supersedes: supersedes?.advisory.docId ?? null } }, t);
+    const subscribers = await Subscription.findAll({ where: { regionId: region.id, status: ['active', 'past_due'], currentPeriodEnd: { [Op.gt]: new Date() } }, transaction: t });
+    const users = await User.findAll({ where: { id: [...new Set(subscribers.map((s) => s.userId))], active: true }, transaction: t });
+    for (const u of users) {
+      await OutboxMail.create({
+        dedupeKey: `advisory:${advisory.id}:user:${u.id}`, toAddress: u.email, subject: `Harvest advisory ${docId}: ${title}`, advisoryId: advisory.id,
+        body: `${summary}\n\nThe advisory is attached and in your portal: ${this.publicUrl}/portal\n\nDocument ${docId}, SHA-256 ${sha256}.\n\nThese figures are scientific advice to a competent authority, subject to local regulation and licensed practice.`,
+        lastError: null, messageId: null, nextAttemptAt: new Date(), sentAt: null,
+      }, { transaction: t });
+    }
+    return advisory;
+  }
+
+  /** Starts sending what the committed transaction queued (never inside it). */
+  afterCommit(): void {
+    this.mail.kick();
+  }
+}

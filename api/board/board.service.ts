@@ -1,0 +1,139 @@
+/** The quota board: comments, votes, the chair's decision; every action audited, a decision in one transaction. */
+import { Op, type Sequelize, type Transaction } from 'sequelize';
+import { AuditEvent } from '../audit/audit-event.model';
+import { recordAudit } from '../audit/audit.service';
+import { Advisory } from '../advisories/advisory.model';
+import { AdvisoryPublisher } from '../advisories/advisory.publisher';
+import { ConflictError, ForbiddenError, HttpError, NotFoundError } from '../http/http-error';
+import { Proposal } from '../proposals/proposal.model';
+import { User } from '../users/user.model';
+import { BoardRules, Comment, Decision, Vote, type VoteCount } from './board.models';
+import type { AuditView, BoardView, CommentView } from './board.schemas';
+
+export class BoardService {
+  constructor(private readonly sequelize: Sequelize, private readonly publisher: AdvisoryPublisher) {}
+
+  async rules(): Promise<{ quorum: number; majority: number }> {
+    const r = (await BoardRules.findByPk(1))!;
+    return { quorum: r.quorum, majority: r.majority };
+  }
+
+  async setRules(actorId: number, body: { quorum: number; majority: number }) {
+    return this.sequelize.transaction(async (t) => {
+      const r = (await BoardRules.findByPk(1, { transaction: t, lock: t.LOCK.UPDATE }))!;
+      const before = { quorum: r.quorum, majority: r.majority };
+      await r.update({ ...body, updatedBy: actorId }, { transaction: t });
+      await recordAudit({ actorId, action: 'board.rules', entityType: 'board_rules', entityId: 1, before, after: body }, t);
+      return body;
+    });
+  }
+
+  async comment(actor: Express.User, proposalId: number, body: { body: string; parentId?: number | null }) {
+    await this.submitted(proposalId);
+    if (body.parentId && !(await Comment.findOne({ where: { id: body.parentId, proposalId } }))) throw new NotFoundError('The comment being answered');
+    return this.sequelize.transaction(async (t) => {
+      const c = await Comment.create({ proposalId, parentId: body.parentId ?? null, authorId: actor.id, body: body.body }, { transaction: t });
+      await recordAudit({ actorId: actor.id, action: 'proposal.comment', entityType: 'proposal', entityId: proposalId, after: { commentId: c.id, parentId: c.parentId, body: c.body } }, t);
+      return { id: c.id };
+    });
+  }
+
+  async vote(actor: Express.User, proposalId: number, body: { choice: 'approve' | 'reject' | 'abstain'; reason: string }) {
+    await this.submitted(proposalId);
+    return this.sequelize.transaction(async (t) => {
+      if (await Decision.findOne({ where: { proposalId }, transaction: t })) throw new ConflictError('ALREADY_DECIDED', 'The board has already decided this proposal.');
+      const existing = await Vote.findOne({ where: { proposalId, voterId: actor.id }, transaction: t, lock: t.LOCK.UPDATE });
+      const before = existing ? { choice: existing.choice, reason: existing.reason } : null;
+      if (existing) await existing.update(body, { transaction: t });
+      else await Vote.create({ proposalId, voterId: actor.id, ...body }, { transaction: t });
+      await recordAudit({ actorId: actor.id, action: existing ? 'proposal.vote.change' : 'proposal.vote', entityType: 'proposal', entityId: proposalId, before, after: body }, t);
+      return body;
+    });
+  }
+
+  /** Records the chair's decision; an approval publishes the advisory in the same transaction. */
+  async decide(actor: Express.User, proposalId: number, body: { outcome: 'approved' | 'rejected'; limit?: number; reason: string; override: boolean }) {
+    if (!actor.boardChair) throw new ForbiddenError('Only the chair of the board records its decision.');
+    const proposal = await this.submitted(proposalId);
+    const rules = await this.rules();
+    const result = await this.sequelize.transaction(async (t) => {
+      await Proposal.findByPk(proposalId, { transaction: t, lock: t.LOCK.UPDATE });
+      if (await Decision.findOne({ where: { proposalId }, transaction: t })) throw new ConflictError('ALREADY_DECIDED', 'The board has already decided this proposal.');
+      const votes = await Vote.findAll({ where: { proposalId }, transaction: t });
+      const count: VoteCount = { approve: 0, reject: 0, abstain: 0 };
+      for (const v of votes) count[v.choice]++;
+      if (votes.length < rules.quorum) throw new ConflictError('QUORUM_NOT_MET', `${votes.length} vote(s) cast; the board's quorum is ${rules.quorum}.`);
+      const decided = count.approve + count.reject;
+      const carried = decided > 0 && count.approve / decided > rules.majority;
+      if ((body.outcome === 'approved') !== carried) {
+        throw new ConflictError('OUTCOME_AGAINST_VOTES', `The votes (${count.approve} approve, ${count.reject} reject, ${count.abstain} abstain) ${carried ? 'carry' : 'do not carry'} the proposal under a majority above ${Math.round(rules.majority * 100)}%.`);
+      }
+      const limit = body.outcome === 'approved' ? body.limit ?? proposal.quota : null;
+      const lower = proposal.figures.foldHarvest.lower5;
+      if (limit !== null && limit > lower && !body.override) {
+        throw new HttpError(422, 'OVERRIDE_REQUIRED', `A limit of ${Math.round(limit)} is above the lower 5% of the fold harvest (${Math.round(lower)}): approving it needs an explicit override.`, { override: ['required above the fold\'s lower bound'] });
+      }
+      const decision = await Decision.create({
+        proposalId, outcome: body.outcome, approvedLimit: limit, reason: body.reason, override: limit !== null && limit > lower,
+        votes: count, decidedBy: actor.id,
+      }, { transaction: t });
+      await recordAudit({ actorId: actor.id, action: `proposal.${body.outcome}`, entityType: 'proposal', entityId: proposalId, before: { quota: proposal.quota }, after: { limit, override: decision.override, votes: count, reason: body.reason } }, t);
+      const advisory = limit !== null ? await this.publisher.publish({ decision, proposal, limit, override: decision.override, actorId: actor.id }, t) : null;
+      return { decisionId: decision.id, advisoryId: advisory?.id ?? null };
+    });
+    this.publisher.afterCommit();
+    return result;
+  }
+
+  async view(proposalId: number): Promise<BoardView> {
+    const [comments, votes, decision, rules] = await Promise.all([
+      Comment.findAll({ where: { proposalId }, order: [['id', 'ASC']] }),
+      Vote.findAll({ where: { proposalId }, order: [['updatedAt', 'ASC']] }),
+      Decision.findOne({ where: { proposalId } }),
+      this.rules(),
+    ]);
+    const advisoryIds = decision ? (await Advisory.findAll({ where: { decisionId: decision.id }, attributes: ['id'] })).map((a) => a.id) : [];
+    const audit = await AuditEvent.findAll({
+      where: { [Op.or]: [{ entityType: 'proposal', entityId: proposalId }, ...(advisoryIds.length ? [{ entityType: 'advisory', entityId: advisoryIds }] : [])] },
+      order: [['id', 'ASC']],
+    });
+    const names = await this.names([...comments.map((c) => c.authorId), ...votes.map((v) => v.voterId), ...audit.map((a) => a.actorId ?? 0), decision?.decidedBy ?? 0]);
+    const byId = new Map<number, CommentView>();
+    const roots: CommentView[] = [];
+    for (const c of comments) {
+      const view: CommentView = { id: c.id, parentId: c.parentId, authorId: c.authorId, authorName: names.get(c.authorId) ?? '?', body: c.body, createdAt: c.createdAt.toISOString(), replies: [] };
+      byId.set(c.id, view);
+      (c.parentId ? byId.get(c.parentId)?.replies ?? roots : roots).push(view);
+    }
+    return {
+      rules, comments: roots,
+      votes: votes.map((v) => ({ voterId: v.voterId, voterName: names.get(v.voterId) ?? '?', choice: v.choice, reason: v.reason, updatedAt: v.updatedAt.toISOString() })),
+      decision: decision ? {
+        outcome: decision.outcome, approvedLimit: decision.approvedLimit, reason: decision.reason, override: decision.override, votes: decision.votes,
+        decidedByName: names.get(decision.decidedBy) ?? '?', createdAt: decision.createdAt.toISOString(), advisoryId: advisoryIds[0] ?? null,
+      } : null,
+      audit: audit.map((a): AuditView => ({ id: a.id, actorName: a.actorId ? names.get(a.actorId) ?? null : null, action: a.action, entityType: a.entityType, entityId: a.entityId, before: a.before, after: a.after, createdAt: a.createdAt.toISOString() })),
+    };
+  }
+
+  /** Submitted proposals for the board, with whether each is decided. */
+  async queue() {
+    const proposals = await Proposal.findAll({ where: { status: 'submitted' }, order: [['submittedAt', 'DESC']] });
+    const decisions = await Decision.findAll({ where: { proposalId: proposals.map((p) => p.id) } });
+    return proposals.map((p) => ({ ...p.toView(), decision: decisions.find((d) => d.proposalId === p.id)?.outcome ?? null }));
+  }
+
+  private async submitted(id: number): Promise<Proposal> {
+    const p = await Proposal.findByPk(id);
+    if (!p) throw new NotFoundError('Proposal');
+    if (p.status !== 'submitted') throw new ConflictError('PROPOSAL_NOT_SUBMITTED', 'The board only acts on submitted proposals.');
+    return p;
+  }
+
+  private async names(ids: number[]): Promise<Map<number, string>> {
+    const users = await User.findAll({ where: { id: [...new Set(ids.filter(Boolean))] }, attributes: ['id', 'name'] });
+    return new Map(users.map((u) => [u.id, u.name]));
+  }
+}
+
+export type { Transaction };

@@ -1,0 +1,33 @@
+import { readdir, readFile } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { Router } from 'express';
+import { simpleParser } from 'mailparser';
+import type { Config } from '../config';
+import { requireRole } from '../http/auth';
+import { NotFoundError } from '../http/http-error';
+import { OutboxMail } from './outbox.model';
+
+/** Mounted at /api/admin/mail: the outbox (what was queued, sent, failed) and what the local SMTP fake received. */
+export function mailRoutes(config: Config): Router {
+  const dir = resolve(config.MAIL_FAKE_DIR);
+  const router = Router();
+  router.get('/', requireRole('admin'), async (_req, res) => {
+    const outbox = await OutboxMail.findAll({ order: [['id', 'DESC']], limit: 200, attributes: { exclude: ['body'] } });
+    const files = (await readdir(dir).catch(() => [] as string[])).filter((f) => f.endsWith('.eml')).sort().reverse().slice(0, 200);
+    const received = await Promise.all(files.map(async (f) => {
+      const m = await simpleParser(await readFile(join(dir, f)));
+      const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text ?? '';
+      return { file: f, to, subject: m.subject ?? '', date: m.date?.toISOString() ?? null, attachments: m.attachments.map((a) => a.filename ?? 'attachment') };
+    }));
+    res.json({ outbox, received });
+  });
+  router.get('/:file', requireRole('admin'), async (req, res) => {
+    const name = String(req.params.file);
+    if (!/^[\w.-]+\.eml$/.test(name)) throw new NotFoundError('Message');
+    const raw = await readFile(join(dir, name)).catch(() => null);
+    if (!raw) throw new NotFoundError('Message');
+    const m = await simpleParser(raw);
+    res.json({ subject: m.subject, from: m.from?.text, to: Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text, text: m.text, attachments: m.attachments.map((a) => ({ filename: a.filename, size: a.size })) });
+  });
+  return router;
+}
