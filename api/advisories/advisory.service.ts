@@ -33,7 +33,7 @@ export class AdvisoryService {
     const a = await Advisory.findByPk(id);
     if (!a) throw new NotFoundError('Advisory');
     if (viewer.role === 'licensee' && !(await subscribedRegions(viewer.id)).includes(a.regionId)) {
-      throw new ForbiddenError('Your subscription does not cover this region.');
+      throw new HttpError(403, 'NOT_SUBSCRIBED', 'Your subscription does not cover this region.');
     }
     return a;
   }

@@ -14,6 +14,7 @@ const MAX_ATTEMPTS = 5;
 export class MailSender {
   private readonly transport: Transporter;
   private running: Promise<void> | null = null;
+  private requested = false;
   private timer: NodeJS.Timeout | null = null;
 
   constructor(private readonly config: Config) {
@@ -25,9 +26,15 @@ export class MailSender {
     });
   }
 
-  /** Sends everything due now; resolves when done. Calls while one is running share it. */
+  /** Sends everything due; resolves after a pass that began after this call (a call during a pass asks for one more). */
   flush(): Promise<void> {
-    this.running ??= this.sendDue().finally(() => { this.running = null; });
+    this.requested = true;
+    this.running ??= (async () => {
+      while (this.requested) {
+        this.requested = false;
+        await this.sendDue();
+      }
+    })().finally(() => { this.running = null; });
     return this.running;
   }
 

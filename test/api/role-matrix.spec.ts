@@ -62,11 +62,14 @@ describe('role matrix over every API route', () => {
       for (const row of rows.filter((r) => r.allowed !== 'public')) {
         const { agent, csrf } = await signIn(app, role);
         const res = await agent[row.method.toLowerCase() as 'get'](concrete(row.path)).set('x-csrf-token', csrf).send({});
-        const label = `${role} ${row.method} ${row.path} → ${res.status}`;
+        const label = `${role} ${row.method} ${row.path} → ${res.status} ${res.body?.error?.code ?? ''}`;
         if ((row.allowed as readonly Role[]).includes(role)) {
-          expect([401, 403]).withContext(label).not.toContain(res.status);
+          // allowed: never turned away for the role (a business rule such as NOT_SUBSCRIBED may still say 403)
+          expect(res.status).withContext(label).not.toBe(401);
+          expect(res.body?.error?.code).withContext(label).not.toBe('FORBIDDEN');
         } else {
           expect(res.status).withContext(label).toBe(403);
+          expect(res.body.error.code).withContext(label).toBe('FORBIDDEN');
         }
       }
     });

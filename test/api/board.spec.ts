@@ -1,0 +1,167 @@
+import { execFileSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Express } from 'express';
+import type request from 'supertest';
+import { Advisory } from '../../api/advisories/advisory.model';
+import { Decision } from '../../api/board/board.models';
+import { Subscription } from '../../api/subscriptions/subscription.models';
+import { User } from '../../api/users/user.model';
+import { submittedProposal } from './support/decided';
+import { received, recipients } from './support/mailbox';
+import { signIn, testApp, type SignedIn } from './support/test-app';
+
+const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => cb(null, Buffer.concat(chunks)));
+};
+
+describe('quota board, decisions and advisories', () => {
+  let app: Express;
+  let assessor: SignedIn;
+  let chair: SignedIn;
+  let odhran: SignedIn;
+  let ana: SignedIn;
+  const other = (email: string) => signIn(app, { email, password: 'corran-firth-demo' });
+
+  beforeAll(async () => {
+    app = await testApp();
+    assessor = await signIn(app, 'assessor');
+    chair = await other('maren.holt@corran-firth.example');
+    odhran = await other('odhran.pike@corran-firth.example');
+    ana = await other('ana.lusk@corran-firth.example');
+  });
+
+  const vote = (who: SignedIn, id: number, choice: string) =>
+    who.agent.post(`/api/proposals/${id}/board/votes`).set('x-csrf-token', who.csrf).send({ choice, reason: `I ${choice}: figures checked.` });
+  const decide = (who: SignedIn, id: number, body: Record<string, unknown>) =>
+    who.agent.post(`/api/proposals/${id}/board/decision`).set('x-csrf-token', who.csrf).send({ reason: 'The board weighed the margin to the fold.', ...body });
+
+  it('e-mails every board member, and only them, when a proposal is submitted', async () => {
+    const { proposalId } = await submittedProposal(assessor, 'silver-smelt');
+    await app.locals.mail.flush();
+    const mails = (await received()).filter((m) => m.subject?.includes(`#${proposalId} `));
+    expect(mails.flatMap(recipients).sort()).toEqual(['ana.lusk@corran-firth.example', 'maren.holt@corran-firth.example', 'odhran.pike@corran-firth.example']);
+  });
+
+  it('refuses a decision before quorum, from a member who is not the chair, and against the votes', async () => {
+    const { proposalId } = await submittedProposal(assessor, 'red-grouse');
+    expect((await vote(odhran, proposalId, 'approve').expect(201)).body.vote.choice).toBe('approve');
+    expect((await decide(chair, proposalId, { outcome: 'approved' }).expect(409)).body.error.code).toBe('QUORUM_NOT_MET');
+    await vote(ana, proposalId, 'reject').expect(201);
+    await vote(chair, proposalId, 'reject').expect(201);
+    expect((await decide(odhran, proposalId, { outcome: 'rejected' }).expect(403)).body.error.message).toContain('chair');
+    expect((await decide(chair, proposalId, { outcome: 'approved' }).expect(409)).body.error.code).toBe('OUTCOME_AGAINST_VOTES');
+    const rejected = await decide(chair, proposalId, { outcome: 'rejected' }).expect(201);
+    expect(rejected.body.advisoryId).toBeNull();
+    expect((await vote(ana, proposalId, 'approve').expect(409)).body.error.code).toBe('ALREADY_DECIDED');
+    const view = await assessor.agent.get(`/api/proposals/${proposalId}/board`).expect(200);
+    expect(view.body.decision.votes).toEqual({ approve: 1, reject: 2, abstain: 0 });
+    const actions = view.body.audit.map((a: { action: string }) => a.action);
+    expect(actions).toEqual(jasmine.arrayContaining(['proposal.submit', 'proposal.vote', 'proposal.rejected']));
+    expect(view.body.audit.find((a: { action: string }) => a.action === 'proposal.rejected').actorName).toBe('Maren Holt');
+  });
+
+  it('needs an explicit override for a limit above the lower 5% of the fold, and flags it in the advisory', async () => {
+    const { proposalId, lower5 } = await submittedProposal(assessor, 'red-grouse');
+    await vote(odhran, proposalId, 'approve').expect(201);
+    await vote(chair, proposalId, 'approve').expect(201);
+    const refused = await decide(chair, proposalId, { outcome: 'approved', limit: Math.round(lower5 * 1.05) }).expect(422);
+    expect(refused.body.error.code).toBe('OVERRIDE_REQUIRED');
+    expect(await Decision.count({ where: { proposalId } })).toBe(0);
+    const ok = await decide(chair, proposalId, { outcome: 'approved', limit: Math.round(lower5 * 1.05), override: true }).expect(201);
+    const advisory = await Advisory.findByPk(ok.body.advisoryId);
+    expect(advisory!.override).toBeTrue();
+    const text = pdfText(advisory!.pdf);
+    expect(text).toContain('OVERRIDE');
+  });
+
+  describe('a published advisory', () => {
+    let advisoryId: number;
+    let limit: number;
+    let moorfellSub: Subscription;
+
+    beforeAll(async () => {
+      const keeper = (await User.findOne({ where: { email: 'keeper@moorfell-estate.example' } }))!;
+      moorfellSub = await Subscription.create({ userId: keeper.id, regionId: keeper.regionId!, plan: 'yearly', stripeCustomerId: 'cus_test', stripeCheckoutId: `cs_test_${Date.now()}`, stripeSubscriptionId: null, status: 'active', currentPeriodEnd: new Date(Date.now() + 30 * 86_400_000) });
+      const { proposalId, lower5 } = await submittedProposal(assessor, 'red-grouse', 0.9);
+      await vote(odhran, proposalId, 'approve').expect(201);
+      await vote(ana, proposalId, 'abstain').expect(201);
+      limit = Math.round(lower5 * 0.85);
+      const res = await decide(chair, proposalId, { outcome: 'approved', limit, reason: 'Lowered below the proposal to keep a wider margin.' }).expect(201);
+      advisoryId = res.body.advisoryId;
+      await app.locals.mail.flush();
+    });
+
+    it('is a PDF whose text has the limit, the margin to the fold, the votes and the caution, with Source Sans 3 embedded', async () => {
+      const a = (await Advisory.findByPk(advisoryId))!;
+      const text = pdfText(a.pdf);
+      expect(text).toContain(`${limit.toLocaleString('en-GB')} birds per year`);
+      expect(text).toContain('Margin to the fold');
+      expect(text).toContain('1 approve, 0 reject, 1 abstain');
+      expect(text).toContain('scientific advice to a competent authority');
+      expect(text).toContain(a.docId);
+      const fonts = pdfFonts(a.pdf);
+      expect(fonts).toMatch(/SourceSans3[^\n]*yes/);
+      expect(fonts.split('\n').filter((l) => /SourceSans3/.test(l)).every((l) => /\byes\b/.test(l))).toBeTrue();
+    });
+
+    it('is downloaded byte for byte as stored, with its SHA-256', async () => {
+      const res = await assessor.agent.get(`/api/advisories/${advisoryId}/pdf`).buffer(true).parse(binary).expect(200);
+      const sha = createHash('sha256').update(res.body as Buffer).digest('hex');
+      expect(res.headers['x-content-sha256']).toBe(sha);
+      expect((await Advisory.findByPk(advisoryId))!.sha256).toBe(sha);
+    });
+
+    it('goes by e-mail, with the PDF, to the region\'s active subscribers only', async () => {
+      const mails = (await received()).filter((m) => m.attachments.some((x) => x.contentType === 'application/pdf') && m.text?.includes(`${limit.toLocaleString('en-GB')} birds`));
+      expect(mails.flatMap(recipients)).toEqual(['keeper@moorfell-estate.example']);
+    });
+
+    it('cannot be changed; a correction is a new advisory that supersedes it', async () => {
+      await chair.agent.patch(`/api/advisories/${advisoryId}`).set('x-csrf-token', chair.csrf).send({ approvedLimit: 1 }).expect(404);
+      await chair.agent.delete(`/api/advisories/${advisoryId}`).set('x-csrf-token', chair.csrf).expect(404);
+      const before = (await Advisory.findByPk(advisoryId))!;
+      expect((await odhran.agent.post(`/api/advisories/${advisoryId}/supersede`).set('x-csrf-token', odhran.csrf).send({ limit: limit - 50, reason: 'Typing error in the limit.' }).expect(403)).body.error.code).toBe('FORBIDDEN');
+      const corr = await chair.agent.post(`/api/advisories/${advisoryId}/supersede`).set('x-csrf-token', chair.csrf).send({ limit: limit - 50, reason: 'Limit corrected after a landing record was revised.' }).expect(201);
+      expect(corr.body.advisory.supersedesId).toBe(advisoryId);
+      const after = (await Advisory.findByPk(advisoryId))!;
+      expect(after.sha256).toBe(before.sha256);
+      expect(after.approvedLimit).toBe(before.approvedLimit);
+      expect(after.supersededById).toBe(corr.body.advisory.id);
+      expect(pdfText((await Advisory.findByPk(corr.body.advisory.id))!.pdf)).toContain(`supersedes ${before.docId}`);
+      expect((await chair.agent.post(`/api/advisories/${advisoryId}/supersede`).set('x-csrf-token', chair.csrf).send({ limit: 10, reason: 'Second correction of the old one.' }).expect(409)).body.error.code).toBe('ALREADY_SUPERSEDED');
+    });
+
+    it('lets a subscribed licensee download it and denies a licensee of another region', async () => {
+      const keeper = await other('keeper@moorfell-estate.example');
+      await keeper.agent.get(`/api/advisories/${advisoryId}/pdf`).expect(200);
+      const list = await keeper.agent.get('/api/advisories').expect(200);
+      expect(list.body.advisories.map((a: { id: number }) => a.id)).toContain(advisoryId);
+      const potters = await other('office@inner-firth-potters.example');
+      await potters.agent.get(`/api/advisories/${advisoryId}/pdf`).expect(403);
+      expect((await potters.agent.get('/api/advisories').expect(200)).body.advisories).toEqual([]);
+      await moorfellSub.update({ currentPeriodEnd: new Date(Date.now() - 1000) });
+      await keeper.agent.get(`/api/advisories/${advisoryId}/pdf`).expect(403);
+    });
+  });
+});
+
+function withFile<T>(pdf: Buffer, f: (path: string) => T): T {
+  const dir = mkdtempSync(join(tmpdir(), 'bm-pdf-'));
+  const path = join(dir, 'a.pdf');
+  writeFileSync(path, pdf);
+  return f(path);
+}
+
+/** Text of a PDF via poppler's pdftotext (an independent reader). */
+function pdfText(pdf: Buffer): string {
+  return withFile(pdf, (p) => execFileSync('pdftotext', ['-layout', p, '-'], { encoding: 'utf8' })).replace(/\s+/g, ' ');
+}
+
+function pdfFonts(pdf: Buffer): string {
+  return withFile(pdf, (p) => execFileSync('pdffonts', [p], { encoding: 'utf8' }));
+}
