@@ -39,6 +39,30 @@ export const routes: Routes = [
         title: 'Proposal · Brinkmark',
       },
       {
+        path: 'board',
+        canMatch: [roleGuard('board', 'admin')],
+        loadComponent: () => import('./board/board-queue').then((m) => m.BoardQueue),
+        title: 'Board · Brinkmark',
+      },
+      {
+        path: 'advisories',
+        canMatch: [roleGuard('admin', 'assessor', 'board', 'licensee')],
+        loadComponent: () => import('./advisories/advisories-page').then((m) => m.AdvisoriesPage),
+        title: 'Advisories · Brinkmark',
+      },
+      {
+        path: 'portal',
+        canMatch: [roleGuard('licensee')],
+        loadComponent: () => import('./subscriptions/portal').then((m) => m.Portal),
+        title: 'Portal · Brinkmark',
+      },
+      {
+        path: 'admin/mail',
+        canMatch: [roleGuard('admin')],
+        loadComponent: () => import('./admin/mail-outbox').then((m) => m.MailOutbox),
+        title: 'Mail outbox · Brinkmark',
+      },
+      {
         path: 'admin/users',
         canMatch: [roleGuard('admin')],
         loadComponent: () => import('./admin/user-admin').then((m) => m.UserAdmin),

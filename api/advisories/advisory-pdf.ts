@@ -1,6 +1,7 @@
 /** Renders an advisory as PDF with pdfkit: shipped Source Sans 3 fonts, vector charts, key figures, decision, caution. */
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
+import { ticks } from 'd3';
 import PDFDocument from 'pdfkit';
 import type { FoldPoint } from '../engine/fold';
 
@@ -41,10 +42,8 @@ type Doc = InstanceType<typeof PDFDocument>;
 function axes(doc: Doc, x: number, y: number, w: number, h: number, xMax: number, yMax: number, xLabel: string, yLabel: string) {
   doc.save().lineWidth(0.6).strokeColor('#9aa9ad').moveTo(x, y).lineTo(x, y + h).lineTo(x + w, y + h).stroke();
   doc.font('regular').fontSize(7).fillColor(MUTED);
-  for (let i = 0; i <= 4; i++) {
-    doc.text(n0((xMax * i) / 4), x + (w * i) / 4 - 20, y + h + 3, { width: 40, align: 'center' });
-    doc.text(n0((yMax * i) / 4), x - 44, y + h - (h * i) / 4 - 4, { width: 40, align: 'right' });
-  }
+  for (const v of ticks(0, xMax, 5)) doc.text(n0(v), x + (w * v) / xMax - 20, y + h + 3, { width: 40, align: 'center' });
+  for (const v of ticks(0, yMax, 4)) doc.text(n0(v), x - 44, y + h - (h * v) / yMax - 4, { width: 40, align: 'right' });
   doc.fontSize(8).text(xLabel, x, y + h + 13, { width: w, align: 'center' });
   doc.save().rotate(-90, { origin: [x - 50, y + h / 2] }).text(yLabel, x - 50 - h / 2, y + h / 2 - 4, { width: h, align: 'center' }).restore();
   doc.restore();

@@ -28,6 +28,8 @@ export class StripeFake {
 
   start(): Promise<void> {
     const app = express();
+    // the SDK sends arrays as lookup_keys[0]=…; Express 5's default query parser would drop them
+    app.set('query parser', 'extended');
     app.use(express.urlencoded({ extended: true }));
     app.use(express.json());
     const api = express.Router();

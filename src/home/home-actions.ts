@@ -20,7 +20,7 @@ export const HOME_ACTIONS: Record<Role, { lead: string; actions: HomeAction[] }>
   board: {
     lead: 'Review submitted quota proposals, discuss them, vote, and record the decision on each limit.',
     actions: [
-      { icon: 'fact_check', title: 'Proposals to review', text: 'Proposals submitted by assessors, with their runs, charts and risk tables.', link: null },
+      { icon: 'fact_check', title: 'Proposals to review', text: 'Proposals submitted by assessors, with their runs, charts and risk tables; comment, vote, decide.', link: '/board' },
       { icon: 'set_meal', title: 'Stocks', text: 'Every managed stock and its latest assessment.', link: '/stocks' },
     ],
   },
@@ -28,7 +28,7 @@ export const HOME_ACTIONS: Record<Role, { lead: string; actions: HomeAction[] }>
     lead: 'Read the published advisories for the regions your licence covers.',
     actions: [
       { icon: 'set_meal', title: 'My stocks', text: 'The stocks of your region.', link: '/stocks' },
-      { icon: 'description', title: 'Advisories', text: 'Published harvest limits for your regions, newest first.', link: null },
+      { icon: 'description', title: 'Advisories and subscription', text: 'Published harvest limits for your regions, newest first; your plan, renewal and invoices.', link: '/portal' },
     ],
   },
   admin: {
@@ -36,6 +36,7 @@ export const HOME_ACTIONS: Record<Role, { lead: string; actions: HomeAction[] }>
     actions: [
       { icon: 'manage_accounts', title: 'People and roles', text: 'Create accounts, set roles and regions, deactivate access.', link: '/admin/users' },
       { icon: 'set_meal', title: 'Stocks', text: 'Stocks and regions of the agency.', link: '/stocks' },
+      { icon: 'outgoing_mail', title: 'Mail outbox', text: 'Every e-mail queued and sent, with retries and errors.', link: '/admin/mail' },
     ],
   },
 };

@@ -71,6 +71,9 @@ describe('licensee subscriptions through the Stripe fake', () => {
     expect(pay.headers.get('location')).toContain('/portal?checkout=done');
     const sub = await until(() => forRegion(moorfell.id), (s) => s?.status === 'active' && s.invoices.length > 0, 'the subscription to become active');
     expect(sub!.hasAccess).toBeTrue();
+    const invoice = (sub as unknown as { invoices: { amount: number; periodStart: string; periodEnd: string }[] }).invoices[0]!;
+    expect(invoice.amount).toBe(4900);
+    expect((Date.parse(invoice.periodEnd) - Date.parse(invoice.periodStart)) / 86_400_000).toBe(30);
     const again = await agent.post('/api/subscriptions/checkout').set('x-csrf-token', csrf).send({ regionId: moorfell.id, plan: 'yearly' }).expect(409);
     expect(again.body.error.code).toBe('ALREADY_SUBSCRIBED');
   });

@@ -12,7 +12,7 @@ export interface RunningServer {
 }
 
 export async function startServer(port: number, dbName: string): Promise<RunningServer> {
-  const env = { ...process.env, PORT: String(port), DB_NAME: dbName, CLIENT_DIR: '.data/dist/browser' };
+  const env = { ...process.env, PORT: String(port), DB_NAME: dbName, CLIENT_DIR: '.data/dist/browser', PUBLIC_URL: `http://127.0.0.1:${port}` };
   const sequelize = createSequelize(loadConfig(env), { withModels: false });
   await sequelize.getQueryInterface().dropAllTables();
   await schemaMigrator(sequelize).up();
@@ -28,6 +28,10 @@ export async function startServer(port: number, dbName: string): Promise<Running
     if (Date.now() > deadline) throw new Error('the server did not start');
     await new Promise((r) => setTimeout(r, 100));
   }
+  // the Stripe fake delivers its webhooks to this server
+  await fetch(`${process.env.STRIPE_API_BASE ?? 'http://127.0.0.1:4322'}/_fake/config`, {
+    method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ webhookUrl: `${base}/api/stripe/webhook` }),
+  });
   return {
     base,
     stop: async () => {

@@ -1,0 +1,40 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable, map } from 'rxjs';
+import type { BoardView } from '../../api/board/board.schemas';
+import type { ProposalView } from '../../api/proposals/proposal.schemas';
+
+export type QueuedProposal = ProposalView & { decision: 'approved' | 'rejected' | null };
+
+@Injectable({ providedIn: 'root' })
+export class BoardApi {
+  private readonly http = inject(HttpClient);
+
+  queue(): Observable<QueuedProposal[]> {
+    return this.http.get<{ proposals: QueuedProposal[] }>('/api/board/proposals').pipe(map((r) => r.proposals));
+  }
+
+  view(proposalId: number): Observable<BoardView> {
+    return this.http.get<BoardView>(`/api/proposals/${proposalId}/board`);
+  }
+
+  comment(proposalId: number, body: string, parentId: number | null): Observable<unknown> {
+    return this.http.post(`/api/proposals/${proposalId}/board/comments`, { body, parentId });
+  }
+
+  vote(proposalId: number, choice: string, reason: string): Observable<unknown> {
+    return this.http.post(`/api/proposals/${proposalId}/board/votes`, { choice, reason });
+  }
+
+  decide(proposalId: number, body: { outcome: string; limit?: number; reason: string; override: boolean }): Observable<{ decisionId: number; advisoryId: number | null }> {
+    return this.http.post<{ decisionId: number; advisoryId: number | null }>(`/api/proposals/${proposalId}/board/decision`, body);
+  }
+
+  rules(): Observable<{ quorum: number; majority: number }> {
+    return this.http.get<{ rules: { quorum: number; majority: number } }>('/api/board/rules').pipe(map((r) => r.rules));
+  }
+
+  setRules(quorum: number, majority: number): Observable<unknown> {
+    return this.http.put('/api/board/rules', { quorum, majority });
+  }
+}
