@@ -6,7 +6,7 @@ import { Advisory } from '../advisories/advisory.model';
 import { AdvisoryPublisher } from '../advisories/advisory.publisher';
 import { ConflictError, ForbiddenError, HttpError, NotFoundError } from '../http/http-error';
 import { Proposal } from '../proposals/proposal.model';
-import { User } from '../users/user.model';
+import { userNames } from '../users/user-names';
 import { BoardRules, Comment, Decision, Vote, type VoteCount } from './board.models';
 import type { AuditView, BoardView, CommentView } from './board.schemas';
 
@@ -97,7 +97,7 @@ export class BoardService {
       where: { [Op.or]: [{ entityType: 'proposal', entityId: proposalId }, ...(advisoryIds.length ? [{ entityType: 'advisory', entityId: advisoryIds }] : [])] },
       order: [['id', 'ASC']],
     });
-    const names = await this.names([...comments.map((c) => c.authorId), ...votes.map((v) => v.voterId), ...audit.map((a) => a.actorId ?? 0), decision?.decidedBy ?? 0]);
+    const names = await userNames([...comments.map((c) => c.authorId), ...votes.map((v) => v.voterId), ...audit.map((a) => a.actorId ?? 0), decision?.decidedBy ?? 0]);
     const byId = new Map<number, CommentView>();
     const roots: CommentView[] = [];
     for (const c of comments) {
@@ -130,10 +130,6 @@ export class BoardService {
     return p;
   }
 
-  private async names(ids: number[]): Promise<Map<number, string>> {
-    const users = await User.findAll({ where: { id: [...new Set(ids.filter(Boolean))] }, attributes: ['id', 'name'] });
-    return new Map(users.map((u) => [u.id, u.name]));
-  }
 }
 
 export type { Transaction };

@@ -5,7 +5,7 @@ import { recordAudit } from '../audit/audit.service';
 import { parseStockCsv } from '../engine/csv';
 import { HttpError, NotFoundError } from '../http/http-error';
 import { Stock } from '../stocks/stock.model';
-import { User } from '../users/user.model';
+import { userNames } from '../users/user-names';
 import { Dataset } from './dataset.model';
 import type { CsvCheck, DatasetView } from './dataset.schemas';
 
@@ -32,14 +32,14 @@ export class DatasetService {
   async list(stockId: number): Promise<DatasetView[]> {
     await this.stock(stockId);
     const rows = await Dataset.findAll({ where: { stockId }, order: [['version', 'DESC']] });
-    const names = await this.names(rows.map((r) => r.createdBy));
+    const names = await userNames(rows.map((r) => r.createdBy));
     return rows.map((r) => r.toView(names.get(r.createdBy) ?? null));
   }
 
   async get(id: number): Promise<{ dataset: DatasetView; check: CsvCheck; csv: string }> {
     const d = await Dataset.findByPk(id);
     if (!d) throw new NotFoundError('Dataset');
-    const names = await this.names([d.createdBy]);
+    const names = await userNames([d.createdBy]);
     return { dataset: d.toView(names.get(d.createdBy) ?? null), check: this.check(d.csvText), csv: d.csvText };
   }
 
@@ -73,8 +73,4 @@ export class DatasetService {
     return s;
   }
 
-  private async names(ids: number[]): Promise<Map<number, string>> {
-    const users = await User.findAll({ where: { id: [...new Set(ids)] }, attributes: ['id', 'name'] });
-    return new Map(users.map((u) => [u.id, u.name]));
-  }
 }
