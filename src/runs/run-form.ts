@@ -60,7 +60,7 @@ export class RunForm {
     this.failure.set(null);
     try {
       const run = await firstValueFrom(this.api.start({
-        datasetId: v.datasetId, model: v.model as never, bootstrap: v.bootstrap, seed: v.seed, risk: v.risk, limit: v.limit,
+        datasetId: v.datasetId, model: v.model as never, bootstrap: this.linked() ? 0 : v.bootstrap, seed: v.seed, risk: v.risk, limit: v.limit,
         trigger: v.trigger, fTarget: v.fTarget, years: v.years, processSd: v.processSd,
         candidates: v.candidates.split(',').map((c) => c.trim()).filter(Boolean).map(Number),
         ...(v.model === 'pella-tomlinson' && v.shape ? { shape: v.shape } : {}),
