@@ -62,14 +62,15 @@ export class MailSender {
           from: this.config.MAIL_FROM, to: mail.toAddress, subject: mail.subject, text: mail.body,
           attachments: advisory ? [{ filename: `${advisory.docId}.pdf`, content: advisory.pdf, contentType: 'application/pdf' }] : [],
         });
-        await mail.update({ status: 'sent', sentAt: new Date(), messageId: info.messageId, attempts: mail.attempts + 1, lastError: null });
+        // why: static updates: the instance still holds 'pending' from before the claim, so instance.update would skip that field
+        await OutboxMail.update({ status: 'sent', sentAt: new Date(), messageId: info.messageId, attempts: mail.attempts + 1, lastError: null }, { where: { id: mail.id } });
       } catch (err) {
         const attempts = mail.attempts + 1;
         console.error(`mail ${mail.id} to ${mail.toAddress} failed (attempt ${attempts}): ${(err as Error).message}`);
-        await mail.update({
+        await OutboxMail.update({
           status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending', attempts, lastError: (err as Error).message,
           nextAttemptAt: new Date(Date.now() + 2 ** attempts * 1000),
-        });
+        }, { where: { id: mail.id } });
       }
     }
   }
