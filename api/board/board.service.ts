@@ -92,7 +92,7 @@ export class BoardService {
       Decision.findOne({ where: { proposalId } }),
       this.rules(),
     ]);
-    const advisoryIds = decision ? (await Advisory.findAll({ where: { decisionId: decision.id }, attributes: ['id'] })).map((a) => a.id) : [];
+    const advisoryIds = decision ? (await Advisory.findAll({ where: { decisionId: decision.id }, attributes: ['id'], order: [['id', 'ASC']] })).map((a) => a.id) : [];
     const audit = await AuditEvent.findAll({
       where: { [Op.or]: [{ entityType: 'proposal', entityId: proposalId }, ...(advisoryIds.length ? [{ entityType: 'advisory', entityId: advisoryIds }] : [])] },
       order: [['id', 'ASC']],
@@ -110,7 +110,7 @@ export class BoardService {
       votes: votes.map((v) => ({ voterId: v.voterId, voterName: names.get(v.voterId) ?? '?', choice: v.choice, reason: v.reason, updatedAt: v.updatedAt.toISOString() })),
       decision: decision ? {
         outcome: decision.outcome, approvedLimit: decision.approvedLimit, reason: decision.reason, override: decision.override, votes: decision.votes,
-        decidedByName: names.get(decision.decidedBy) ?? '?', createdAt: decision.createdAt.toISOString(), advisoryId: advisoryIds[0] ?? null,
+        decidedByName: names.get(decision.decidedBy) ?? '?', createdAt: decision.createdAt.toISOString(), advisoryId: advisoryIds[advisoryIds.length - 1] ?? null,
       } : null,
       audit: audit.map((a): AuditView => ({ id: a.id, actorName: a.actorId ? names.get(a.actorId) ?? null : null, action: a.action, entityType: a.entityType, entityId: a.entityId, before: a.before, after: a.after, createdAt: a.createdAt.toISOString() })),
     };

@@ -15,12 +15,13 @@ import { AuthStore } from '../core/auth/auth-store';
 import { ApiError } from '../core/errors/api-error';
 import { Notifier } from '../core/errors/notifier';
 import { RegionApi } from '../regions/region-api';
+import { BoardRules } from './board-rules';
 import { UserApi } from './user-api';
 
 @Component({
   selector: 'bm-user-admin',
   imports: [ReactiveFormsModule, MatTableModule, MatSelectModule, MatFormFieldModule, MatInputModule, MatButtonModule,
-    MatIconModule, MatSlideToggleModule, MatCardModule],
+    MatIconModule, MatSlideToggleModule, MatCardModule, BoardRules],
   templateUrl: './user-admin.html',
   styleUrl: './user-admin.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

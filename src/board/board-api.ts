@@ -30,6 +30,10 @@ export class BoardApi {
     return this.http.post<{ decisionId: number; advisoryId: number | null }>(`/api/proposals/${proposalId}/board/decision`, body);
   }
 
+  supersede(advisoryId: number, limit: number, reason: string, override: boolean): Observable<unknown> {
+    return this.http.post(`/api/advisories/${advisoryId}/supersede`, { limit, reason, override });
+  }
+
   rules(): Observable<{ quorum: number; majority: number }> {
     return this.http.get<{ rules: { quorum: number; majority: number } }>('/api/board/rules').pipe(map((r) => r.rules));
   }

@@ -44,11 +44,15 @@ export class BoardPanel {
   protected limit = 0;
   protected decisionReason = '';
   protected override = false;
+  protected correctedLimit = 0;
+  protected correctionReason = '';
+  protected correctionOverride = false;
 
   constructor() {
     effect(() => {
       const p = this.proposal();
       this.limit = p.quota;
+      this.correctedLimit = p.quota;
       void this.reload();
     });
   }
@@ -73,6 +77,11 @@ export class BoardPanel {
     await this.act(() => firstValueFrom(this.api.decide(this.proposal().id, {
       outcome: this.outcome, reason: this.decisionReason, override: this.override, ...(this.outcome === 'approved' ? { limit: this.limit } : {}),
     })), this.outcome === 'approved' ? 'Decision recorded; the advisory is published.' : 'Decision recorded.');
+  }
+
+  protected async correct(advisoryId: number): Promise<void> {
+    await this.act(() => firstValueFrom(this.api.supersede(advisoryId, this.correctedLimit, this.correctionReason, this.correctionOverride)), 'Correction published; it supersedes the earlier advisory.');
+    this.correctionReason = '';
   }
 
   private async act(f: () => Promise<unknown>, ok: string): Promise<void> {

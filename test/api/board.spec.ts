@@ -47,6 +47,23 @@ describe('quota board, decisions and advisories', () => {
     expect(mails.flatMap(recipients).sort()).toEqual(['ana.lusk@corran-firth.example', 'maren.holt@corran-firth.example', 'odhran.pike@corran-firth.example']);
   });
 
+  it('applies the quorum the administrator sets, which no board member may change', async () => {
+    const admin = await signIn(app, 'admin');
+    await chair.agent.put('/api/board/rules').set('x-csrf-token', chair.csrf).send({ quorum: 1, majority: 0.5 }).expect(403);
+    const { proposalId } = await submittedProposal(assessor, 'red-grouse');
+    await vote(odhran, proposalId, 'approve').expect(201);
+    await vote(ana, proposalId, 'approve').expect(201);
+    try {
+      await admin.agent.put('/api/board/rules').set('x-csrf-token', admin.csrf).send({ quorum: 3, majority: 0.6 }).expect(200);
+      const res = await decide(chair, proposalId, { outcome: 'approved' }).expect(409);
+      expect(res.body.error.message).toContain('quorum is 3');
+      expect((await admin.agent.put('/api/board/rules').set('x-csrf-token', admin.csrf).send({ quorum: 0, majority: 0.4 }).expect(400)).body.error.fields).toEqual(jasmine.objectContaining({ quorum: jasmine.any(Array), majority: jasmine.any(Array) }));
+    } finally {
+      await admin.agent.put('/api/board/rules').set('x-csrf-token', admin.csrf).send({ quorum: 2, majority: 0.5 }).expect(200);
+    }
+    await decide(chair, proposalId, { outcome: 'approved' }).expect(201);
+  });
+
   it('refuses a decision before quorum, from a member who is not the chair, and against the votes', async () => {
     const { proposalId } = await submittedProposal(assessor, 'red-grouse');
     expect((await vote(odhran, proposalId, 'approve').expect(201)).body.vote.choice).toBe('approve');
