@@ -121,6 +121,11 @@ export function summariseFit(series: StockSeries, fit: RawFit, { intervals = tru
     return { name, value, se: value * seLog, ci95: [value * Math.exp(-1.96 * seLog), value * Math.exp(1.96 * seLog)] };
   });
 
+  const shape = estimates.find((e) => e.name === 'p');
+  if (shape && (!shape.ci95 || shape.ci95[1] / shape.ci95[0] > 10)) {
+    warnings.push('The Pella-Tomlinson shape p is poorly determined by these data (95% interval spans more than a factor of 10): consider fixing p.');
+  }
+
   const indices = series.indices.map((ix) => {
     const f = concentratedIndexFit(ix.values, biomass, ix.cv)!;
     return { name: ix.name, q: f.q, sigma: f.sigma, residuals: f.residuals, fitted: series.years.map((_, t) => f.q * biomass[t]!) };

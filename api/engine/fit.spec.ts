@@ -30,6 +30,13 @@ describe('fitting the demo scenario', () => {
     });
   }
 
+  it('warns that the Pella-Tomlinson shape is poorly determined on the smelt series, and not when p is fixed', () => {
+    const free = assessSurplus(data['silver-smelt']!, { model: 'pella-tomlinson' }).fit;
+    expect(free.convergence.warnings.some((w) => w.includes('shape p is poorly determined'))).toBeTrue();
+    const fixed = assessSurplus(data['silver-smelt']!, { model: 'pella-tomlinson', shape: 0.6 }).fit;
+    expect(fixed.convergence.warnings.some((w) => w.includes('shape p'))).toBeFalse();
+  });
+
   it('reports AIC = 2k − 2 lnL and AICc with the small-sample term', () => {
     const { fit } = assessSurplus(data['blue-lip-crab']!, { model: 'schaefer' });
     expect(fit.nParams).toBe(5);
