@@ -1,13 +1,11 @@
 /** Publishing an approved limit: the PDF, its SHA-256, the advisory row and the subscribers' e-mails, in the decision's transaction. */
 import { createHash } from 'node:crypto';
-import { Op, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
 import type { Decision } from '../board/board.models';
-import { project } from '../engine/projection';
-import type { SurplusModelName } from '../engine/surplus';
 import type { MailSender } from '../mail/mail-sender';
 import { OutboxMail } from '../mail/outbox.model';
-import { figuresFor } from '../proposals/proposal.service';
+import { figuresFor, quotaProjection } from '../proposals/proposal.service';
 import type { Proposal } from '../proposals/proposal.model';
 import { Region } from '../regions/region.model';
 import { Run } from '../runs/run.model';
@@ -30,9 +28,10 @@ export class AdvisoryPublisher {
     const stock = (await Stock.findByPk(proposal.stockId, { transaction: t }))!;
     const region = (await Region.findByPk(stock.regionId, { transaction: t }))!;
     const chair = (await User.findByPk(decision.decidedBy, { transaction: t }))!;
-    const f = figuresFor(run, results, limit, stock.unit);
+    // one projection serves both the figures and the chart of the PDF
+    const proj = quotaProjection(run, results, limit);
+    const f = figuresFor(run, results, limit, stock.unit, proj);
     const o = run.options;
-    const proj = project({ model: run.model as SurplusModelName, replicates: results.bootstrap!.draws, catchLevel: limit, years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed + 7 });
     const year = new Date().getUTCFullYear();
     const seq = (await Advisory.count({ transaction: t })) + 1;
     const docId = `BM-${year}-${stock.code.toUpperCase()}-${String(seq).padStart(4, '0')}`;
@@ -58,7 +57,7 @@ export class AdvisoryPublisher {
     }, { transaction: t });
     if (supersedes) await Advisory.update({ supersededById: advisory.id }, { where: { id: supersedes.advisory.id }, transaction: t });
     await recordAudit({ actorId, action: supersedes ? 'advisory.supersede' : 'advisory.publish', entityType: 'advisory', entityId: advisory.id, after: { docId, sha256, limit, supersedes: supersedes?.advisory.docId ?? null } }, t);
-    const subscribers = await Subscription.findAll({ where: { regionId: region.id, status: ['active', 'past_due'], currentPeriodEnd: { [Op.gt]: new Date() } }, transaction: t });
+    const subscribers = await Subscription.findAll({ where: { regionId: region.id, ...Subscription.givingAccess() }, transaction: t });
     const users = await User.findAll({ where: { id: [...new Set(subscribers.map((s) => s.userId))], active: true }, transaction: t });
     for (const u of users) {
       await OutboxMail.create({

@@ -14,8 +14,8 @@ const META = ['id', 'docId', 'stockId', 'regionId', 'decisionId', 'approvedLimit
 
 /** Regions whose advisories this licensee may read now. */
 export async function subscribedRegions(userId: number): Promise<number[]> {
-  const subs = await Subscription.findAll({ where: { userId, status: ['active', 'past_due', 'canceled'], currentPeriodEnd: { [Op.gt]: new Date() } } });
-  return [...new Set(subs.filter((s) => s.grantsAccess()).map((s) => s.regionId))];
+  const subs = await Subscription.findAll({ where: { userId, ...Subscription.givingAccess() }, attributes: ['regionId'] });
+  return [...new Set(subs.map((s) => s.regionId))];
 }
 
 export class AdvisoryService {

@@ -11,6 +11,8 @@ import express, { type Request, type Response } from 'express';
 type Obj = Record<string, unknown> & { id: string };
 const id = (prefix: string) => `${prefix}_${randomBytes(12).toString('hex')}`;
 const now = () => Math.floor(Date.now() / 1000);
+/** Length of one billing period of a price, in seconds. */
+const periodSeconds = (price: Obj) => ((price.recurring as { interval: string }).interval === 'year' ? 365 : 30) * 86400;
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 export interface StripeFakeOptions {
@@ -121,9 +123,8 @@ button{margin-top:18px;width:100%;padding:12px;font-size:16px;background:#333;co
     if (card === '4000000000000002') return this.page(res, s.id, 'Your card was declined.');
     if (card !== '4242424242424242') return this.page(res, s.id, 'Your card number is not a test card of this checkout.');
     const price = this.store.prices.get(s.price as string)!;
-    const interval = (price.recurring as { interval: string }).interval;
     const start = now();
-    const end = start + (interval === 'year' ? 365 : 30) * 86400;
+    const end = start + periodSeconds(price);
     const sub = this.put('subscriptions', {
       id: id('sub'), object: 'subscription', customer: s.customer, status: 'active', cancel_at_period_end: false,
       current_period_start: start, current_period_end: end, metadata: s.metadata, items: { object: 'list', data: [{ id: id('si'), price, current_period_start: start, current_period_end: end }] },
@@ -142,7 +143,7 @@ button{margin-top:18px;width:100%;padding:12px;font-size:16px;background:#333;co
     if (!sub) return this.error(res, 404, 'No such subscription.');
     const price = (sub.items as { data: { price: Obj }[] }).data[0]!.price;
     const start = sub.current_period_end as number;
-    const end = start + ((price.recurring as { interval: string }).interval === 'year' ? 365 : 30) * 86400;
+    const end = start + periodSeconds(price);
     if (req.body.outcome === 'failed') {
       sub.status = 'past_due';
       const inv = this.invoice(sub, price, start, end, 'open');

@@ -1,11 +1,13 @@
 import { readdir, readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { Router } from 'express';
-import { simpleParser } from 'mailparser';
+import { type ParsedMail, simpleParser } from 'mailparser';
 import type { Config } from '../config';
 import { requireRole } from '../http/auth';
 import { NotFoundError } from '../http/http-error';
 import { OutboxMail } from './outbox.model';
+
+const recipients = (m: ParsedMail) => (Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text ?? '');
 
 /** Mounted at /api/admin/mail: the outbox (what was queued, sent, failed) and what the local SMTP fake received. */
 export function mailRoutes(config: Config): Router {
@@ -16,8 +18,7 @@ export function mailRoutes(config: Config): Router {
     const files = (await readdir(dir).catch(() => [] as string[])).filter((f) => f.endsWith('.eml')).sort().reverse().slice(0, 200);
     const received = await Promise.all(files.map(async (f) => {
       const m = await simpleParser(await readFile(join(dir, f)));
-      const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text ?? '';
-      return { file: f, to, subject: m.subject ?? '', date: m.date?.toISOString() ?? null, attachments: m.attachments.map((a) => a.filename ?? 'attachment') };
+      return { file: f, to: recipients(m), subject: m.subject ?? '', date: m.date?.toISOString() ?? null, attachments: m.attachments.map((a) => a.filename ?? 'attachment') };
     }));
     res.json({ outbox, received });
   });
@@ -27,7 +28,7 @@ export function mailRoutes(config: Config): Router {
     const raw = await readFile(join(dir, name)).catch(() => null);
     if (!raw) throw new NotFoundError('Message');
     const m = await simpleParser(raw);
-    res.json({ subject: m.subject, from: m.from?.text, to: Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text, text: m.text, attachments: m.attachments.map((a) => ({ filename: a.filename, size: a.size })) });
+    res.json({ subject: m.subject, from: m.from?.text, to: recipients(m), text: m.text, attachments: m.attachments.map((a) => ({ filename: a.filename, size: a.size })) });
   });
   return router;
 }

@@ -1,7 +1,7 @@
 /** Quota proposals: figures computed from the run by the engine; submitted proposals are frozen. */
 import type { Sequelize, Transaction } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
-import { project } from '../engine/projection';
+import { project, type ProjectionResult } from '../engine/projection';
 import type { SurplusModelName } from '../engine/surplus';
 import { ConflictError, HttpError, NotFoundError } from '../http/http-error';
 import { Run } from '../runs/run.model';
@@ -23,28 +23,30 @@ async function surplusResults(runId: number): Promise<{ run: Run; results: Surpl
   return { run, results };
 }
 
-/** Engine figures for a quota: margin to the fold, risks and projections, from the run's bootstrap draws. */
-export function figuresFor(run: Run, results: SurplusRunResults, quota: number, unit: string): ProposalFigures {
+/** The run's stochastic projection under a constant catch, from its bootstrap draws. */
+export function quotaProjection(run: Run, results: SurplusRunResults, catchLevel: number): ProjectionResult {
   const o = run.options;
-  const draws = results.bootstrap!.draws;
-  const at = (catchLevel: number, i: number): CandidateFigures => {
-    const p = project({ model: run.model as SurplusModelName, replicates: draws, catchLevel, years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed + 101 + i });
-    return {
-      catchLevel, pPassFold: p.pPassFold, pBelowLimit: p.pBelowLimit, returnRate: p.returnRate,
-      medianEnd: p.median[p.median.length - 1]!, lowerEnd: p.lower[p.lower.length - 1]!, upperEnd: p.upper[p.upper.length - 1]!,
-    };
+  return project({ model: run.model as SurplusModelName, replicates: results.bootstrap!.draws, catchLevel, years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed + 101 });
+}
+
+function endFigures(p: ProjectionResult): CandidateFigures {
+  return {
+    catchLevel: p.catchLevel, pPassFold: p.pPassFold, pBelowLimit: p.pBelowLimit, returnRate: p.returnRate,
+    medianEnd: p.median[p.median.length - 1]!, lowerEnd: p.lower[p.lower.length - 1]!, upperEnd: p.upper[p.upper.length - 1]!,
   };
+}
+
+/** Engine figures for a quota: margin to the fold, risks and projections, from the run's bootstrap draws. */
+export function figuresFor(run: Run, results: SurplusRunResults, quota: number, unit: string, atQuota = quotaProjection(run, results, quota)): ProposalFigures {
+  const o = run.options;
   const { median, lower5, upper95 } = results.quota!.proposal.hStar;
   return {
     unit, model: run.model, foldHarvest: { median, lower5, upper95 },
     marginToFold: { absolute: median - quota, fraction: (median - quota) / median },
     marginToFoldLower: { absolute: lower5 - quota, fraction: (lower5 - quota) / lower5 },
     msy: results.fit.reference.msy, bOverBmsy: results.fit.status.bOverBmsy, fOverFmsy: results.fit.status.fOverFmsy,
-    risk: o.risk, projectionYears: o.years, limitFraction: o.limitFraction, atQuota: at(quota, 0),
-    candidates: results.quota!.candidates.map((c) => ({
-      catchLevel: c.catchLevel, pPassFold: c.pPassFold, pBelowLimit: c.pBelowLimit, returnRate: c.returnRate,
-      medianEnd: c.median[c.median.length - 1]!, lowerEnd: c.lower[c.lower.length - 1]!, upperEnd: c.upper[c.upper.length - 1]!,
-    })),
+    risk: o.risk, projectionYears: o.years, limitFraction: o.limitFraction, atQuota: endFigures(atQuota),
+    candidates: results.quota!.candidates.map(endFigures),
     engineProposal: results.quota!.proposal.proposed,
   };
 }

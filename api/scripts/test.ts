@@ -56,7 +56,7 @@ try {
     check('type check (server and engine)', tsc, ['-p', 'tsconfig.api.json', '--noEmit']);
     check('type check (client)', tsc, ['-p', 'tsconfig.app.json', '--noEmit']);
   }
-  if (only !== 'client') {
+  if (!only || only === 'api') {
     await startMariaDb(test.server);
     ensureDatabase(test.server, test.db, true);
     ensureDatabase(test.server, { ...test.db, name: 'brinkmark_scratch' }, true);

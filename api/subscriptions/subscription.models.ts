@@ -1,4 +1,4 @@
-import { CreationOptional, DataTypes, InferAttributes, InferCreationAttributes, Model, Sequelize } from 'sequelize';
+import { CreationOptional, DataTypes, InferAttributes, InferCreationAttributes, Model, Op, Sequelize, type WhereOptions } from 'sequelize';
 
 export type Plan = 'monthly' | 'yearly';
 export type SubscriptionStatus = 'pending' | 'active' | 'past_due' | 'canceled';
@@ -21,6 +21,11 @@ export class Subscription extends Model<InferAttributes<Subscription>, InferCrea
   /** Whether the subscription gives access now: paid up to a period end still in the future. */
   grantsAccess(now = new Date()): boolean {
     return this.status !== 'pending' && this.currentPeriodEnd !== null && this.currentPeriodEnd > now;
+  }
+
+  /** The same rule as grantsAccess, as a query condition. */
+  static givingAccess(now = new Date()): WhereOptions<Subscription> {
+    return { status: { [Op.ne]: 'pending' }, currentPeriodEnd: { [Op.gt]: now } };
   }
 
   static initModel(sequelize: Sequelize): void {

@@ -16,6 +16,7 @@ import { Notifier } from '../core/errors/notifier';
 import { RunApi, type RunDetail } from '../runs/run-api';
 import { BifurcationChart, type BifurcationData } from '../shared/charts/bifurcation-chart';
 import { BoardPanel } from '../board/board-panel';
+import { Caution } from '../shared/caution';
 import { ChartFrame } from '../shared/charts/chart-frame';
 import { ModelNamePipe } from '../shared/sig.pipe';
 import { ProposalApi } from './proposal-api';
@@ -23,7 +24,7 @@ import { ProposalApi } from './proposal-api';
 /** Drafts a proposal from a run (route proposals/new?run=ID) or shows, edits and submits one (proposals/:id). */
 @Component({
   selector: 'bm-proposal-page',
-  imports: [FormsModule, RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, ChartFrame, BifurcationChart, BoardPanel],
+  imports: [Caution, FormsModule, RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, ChartFrame, BifurcationChart, BoardPanel],
   templateUrl: './proposal-page.html',
   styleUrl: './proposal-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -2,6 +2,7 @@ import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { PredatorPreyRunResults } from '../../api/runs/run.schemas';
+import { Caution } from '../shared/caution';
 import { ChartFrame } from '../shared/charts/chart-frame';
 import { SigPipe } from '../shared/sig.pipe';
 import { PALETTE } from '../shared/charts/chart-kit';
@@ -11,9 +12,9 @@ import { SeriesChart, type SeriesLine } from '../shared/charts/series-chart';
 /** A linked-stock run: estimates, the equilibrium and its eigenvalues, bifurcations in each catch, phase plane and series. */
 @Component({
   selector: 'bm-predator-prey-results',
-  imports: [DecimalPipe, SigPipe, MatIconModule, ChartFrame, PhasePlaneChart, SeriesChart],
+  imports: [Caution, DecimalPipe, SigPipe, MatIconModule, ChartFrame, PhasePlaneChart, SeriesChart],
   template: `
-    <p class="bm-caution"><mat-icon>gavel</mat-icon>These figures are scientific advice to a competent authority, subject to local regulation and licensed practice.</p>
+    <bm-caution />
     @for (w of results().fit.convergence.warnings; track $index) { <div class="bm-warn"><mat-icon>warning_amber</mat-icon>{{ w }}</div> }
     <div class="bm-two">
       <bm-chart-frame title="Phase plane" subtitle="Fitted trajectory with both nullclines and the equilibrium" fileName="phase-plane">
@@ -51,7 +52,7 @@ import { SeriesChart, type SeriesLine } from '../shared/charts/series-chart';
     .bm-card { background: #fff; border: 1px solid var(--bm-line); border-radius: 8px; padding: 12px 16px; } h3 { margin: 0 0 8px; font-size: 16px; color: var(--bm-ink); }
     .bm-est { width: 100%; border-collapse: collapse; font-size: 13.5px; } .bm-est th { text-align: left; color: var(--bm-muted); border-bottom: 1px solid var(--bm-line); padding: 4px 6px; }
     .bm-est td { padding: 4px 6px; border-bottom: 1px solid #f0f3f4; } .bm-small { color: var(--bm-muted); font-size: 12.5px; }
-    .bm-caution, .bm-warn { display: flex; gap: 8px; align-items: center; margin: 0; color: var(--bm-muted); font-size: 13px; } .bm-warn { color: #8a5a00; }
+    .bm-warn { display: flex; gap: 8px; align-items: center; margin: 0; color: var(--bm-muted); font-size: 13px; } .bm-warn { color: #8a5a00; }
     @media (max-width: 1100px) { .bm-two { grid-template-columns: 1fr; } }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 import type { RunView, SurplusRunResults } from '../../api/runs/run.schemas';
 import { BifurcationChart, type BifurcationData } from '../shared/charts/bifurcation-chart';
+import { Caution } from '../shared/caution';
 import { ChartFrame } from '../shared/charts/chart-frame';
 import { SigPipe } from '../shared/sig.pipe';
 import { EarlyWarningChart } from '../shared/charts/early-warning-chart';
@@ -12,7 +13,7 @@ import { ProjectionChart, type ProjectionChartData } from '../shared/charts/proj
 /** Everything a single-stock run reports: key figures, estimates, diagnostics and the charts. */
 @Component({
   selector: 'bm-surplus-results',
-  imports: [DecimalPipe, PercentPipe, SigPipe, MatIconModule, ChartFrame, BifurcationChart, FitChart, ProjectionChart, EarlyWarningChart],
+  imports: [Caution, DecimalPipe, PercentPipe, SigPipe, MatIconModule, ChartFrame, BifurcationChart, FitChart, ProjectionChart, EarlyWarningChart],
   templateUrl: './surplus-results.html',
   styleUrl: './surplus-results.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

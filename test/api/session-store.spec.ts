@@ -1,34 +1,11 @@
-import { type ChildProcess, spawn } from 'node:child_process';
-import { resolve } from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { DEMO_PASSWORD } from '../../seeders/demo-people';
+import { spawnServer } from '../support/server-process';
 import { demoEmail, testDb } from './support/test-app';
 
-const ROOT = resolve(import.meta.dirname, '..', '..');
 const PORT = 4391;
 const BASE = `http://127.0.0.1:${PORT}`;
-
-/** Starts the real server process (api/server.ts) on the test database and waits until it answers. */
-async function startServer(): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'api/server.ts'], {
-    cwd: ROOT, env: { ...process.env, PORT: String(PORT), CLIENT_DIR: '.data/no-client' }, stdio: process.env.SHOW_SERVER ? 'inherit' : 'ignore',
-  });
-  const deadline = Date.now() + 20_000;
-  while (Date.now() < deadline) {
-    try {
-      if ((await fetch(`${BASE}/api/auth/csrf`)).ok) return child;
-    } catch { /* not listening yet */ }
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  child.kill('SIGKILL');
-  throw new Error('server did not start');
-}
-
-async function stopServer(child: ChildProcess): Promise<void> {
-  const exited = new Promise((r) => child.once('exit', r));
-  child.kill('SIGTERM');
-  await exited;
-}
+const startServer = () => spawnServer(PORT, { CLIENT_DIR: '.data/no-client' });
 
 function cookieOf(res: Response): string {
   return res.headers.getSetCookie().find((c) => c.startsWith('brinkmark.sid='))!.split(';')[0]!;
@@ -53,7 +30,7 @@ describe('session store in MariaDB', () => {
       expect(login.status).toBe(200);
       cookie = cookieOf(login);
     } finally {
-      await stopServer(first);
+      await first.stop();
     }
 
     const sid = decodeURIComponent(cookie.split('=')[1]!).slice(2).split('.')[0];
@@ -68,7 +45,7 @@ describe('session store in MariaDB', () => {
       expect(me.status).toBe(200);
       expect(((await me.json()) as { user: { email: string } }).user.email).toBe(demoEmail('board'));
     } finally {
-      await stopServer(second);
+      await second.stop();
     }
   });
 });
