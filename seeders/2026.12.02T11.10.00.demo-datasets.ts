@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { Op, QueryInterface } from 'sequelize';
-import { parseStockCsv } from '../api/engine/csv';
+import { parseStockCsv } from '../api/engine/data/csv';
 import { DEMO_STOCKS } from './demo-people';
 
 type Ctx = { context: QueryInterface };

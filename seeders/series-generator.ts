@@ -2,10 +2,10 @@
  * Generates the demo scenario's data series (seeded, reproducible) from the invented "true" values
  * of the scenario. `npm run --silent seed-series` rewrites seeders/data/*.csv.
  */
-import { createRng } from '../api/engine/random';
-import { predatorPreyPath } from '../api/engine/predator-prey';
-import type { StockSeries } from '../api/engine/series';
-import { biomassPath, type SurplusModelName } from '../api/engine/surplus';
+import { createRng } from '../api/engine/numerics/random';
+import { predatorPreyPath } from '../api/engine/linked/predator-prey';
+import type { StockSeries } from '../api/engine/data/series';
+import { biomassPath, type SurplusModelName } from '../api/engine/surplus/surplus';
 
 export const SERIES_SEED = 20261202;
 export const FIRST_YEAR = 1990;

@@ -1,7 +1,7 @@
 /** Rewrites seeders/data/<stock>.csv from the seeded generator (npm run seed-series). */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { formatStockCsv } from '../api/engine/csv';
+import { formatStockCsv } from '../api/engine/data/csv';
 import { demoSeries } from './series-generator';
 
 const dir = join(import.meta.dirname, 'data');

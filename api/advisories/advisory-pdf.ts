@@ -3,7 +3,7 @@ import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { ticks } from 'd3';
 import PDFDocument from 'pdfkit';
-import type { FoldPoint } from '../engine/fold';
+import type { FoldPoint } from '../engine/surplus/fold';
 
 const require = createRequire(import.meta.url);
 const FONTS = join(dirname(require.resolve('@fontsource/source-sans-3/package.json')), 'files');

@@ -1,7 +1,7 @@
 /** Contract of the datasets API: shared with the client through `import type`. */
 import { z } from 'zod';
-import type { CsvProblem } from '../engine/csv';
-import type { StockSeries } from '../engine/series';
+import type { CsvProblem } from '../engine/data/csv';
+import type { StockSeries } from '../engine/data/series';
 
 export const MAX_CSV_BYTES = 256 * 1024;
 

@@ -2,7 +2,7 @@
 import { parse } from 'csv-parse/sync';
 import type { Sequelize } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
-import { parseStockCsv } from '../engine/csv';
+import { parseStockCsv } from '../engine/data/csv';
 import { HttpError, NotFoundError } from '../http/http-error';
 import { Stock } from '../stocks/stock.model';
 import { userNames } from '../users/user-names';

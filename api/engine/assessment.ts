@@ -1,12 +1,12 @@
 /** The engine's entry points for one stock: fit with fold analysis, bootstrap, and a quota study. */
-import { bootstrapInWorkers } from './bootstrap-pool';
-import { quantile, runBootstrap, type Replicate } from './bootstrap';
-import { fitSurplusRaw, type SurplusFitOptions } from './fit-surplus';
-import { summariseFit, type SurplusFitSummary } from './fit-summary';
-import { surplusFold, type FoldAnalysis } from './fold';
-import { project, type ProjectionResult } from './projection';
-import { proposeQuota, type QuotaProposal, type RampRule } from './quota';
-import type { StockSeries } from './series';
+import { bootstrapInWorkers } from './uncertainty/bootstrap-pool';
+import { quantile, runBootstrap, type Replicate } from './uncertainty/bootstrap';
+import { fitSurplusRaw, type SurplusFitOptions } from './surplus/fit-surplus';
+import { summariseFit, type SurplusFitSummary } from './fit/fit-summary';
+import { surplusFold, type FoldAnalysis } from './surplus/fold';
+import { project, type ProjectionResult } from './projection/projection';
+import { proposeQuota, type QuotaProposal, type RampRule } from './projection/quota';
+import type { StockSeries } from './data/series';
 
 export const ENGINE_VERSION = '0.1.0';
 

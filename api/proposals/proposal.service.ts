@@ -1,8 +1,8 @@
 /** Quota proposals: figures computed from the run by the engine; submitted proposals are frozen. */
 import type { Sequelize, Transaction } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
-import { project, type ProjectionResult } from '../engine/projection';
-import type { SurplusModelName } from '../engine/surplus';
+import { project, type ProjectionResult } from '../engine/projection/projection';
+import type { SurplusModelName } from '../engine/surplus/surplus';
 import { ConflictError, HttpError, NotFoundError } from '../http/http-error';
 import { Run } from '../runs/run.model';
 import type { SurplusRunResults } from '../runs/run.schemas';

@@ -1,11 +1,11 @@
 /** What one run computes, from a series and its options, reporting progress: engine calls only, no I/O. */
 import { assessSurplus, bootstrapFit, quotaStudy } from '../engine/assessment';
-import { quantile } from '../engine/bootstrap';
-import { earlyWarning } from '../engine/early-warning';
-import { fitPredatorPrey } from '../engine/fit-predator-prey';
-import { harvestBifurcations, interiorEquilibrium } from '../engine/predator-prey';
-import { filledCatches, type StockSeries } from '../engine/series';
-import type { SurplusModelName } from '../engine/surplus';
+import { quantile } from '../engine/uncertainty/bootstrap';
+import { earlyWarning } from '../engine/diagnostics/early-warning';
+import { fitPredatorPrey } from '../engine/linked/fit-predator-prey';
+import { harvestBifurcations, interiorEquilibrium } from '../engine/linked/predator-prey';
+import { filledCatches, type StockSeries } from '../engine/data/series';
+import type { SurplusModelName } from '../engine/surplus/surplus';
 import type { PredatorPreyRunResults, RunOptions, RunResults, SurplusRunResults } from './run.schemas';
 
 export type Progress = (fraction: number, stage: string) => void;

@@ -3,8 +3,8 @@
  * outcome are written to the run's row; cancelling terminates the worker.
  */
 import type { Worker } from 'node:worker_threads';
-import { tsWorker } from '../engine/ts-worker';
-import { parseStockCsv } from '../engine/csv';
+import { tsWorker } from '../engine/numerics/ts-worker';
+import { parseStockCsv } from '../engine/data/csv';
 import { Dataset } from '../datasets/dataset.model';
 import { Run } from './run.model';
 

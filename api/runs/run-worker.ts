@@ -1,6 +1,6 @@
 /** Worker-thread entry for one run: computes, posts progress, then the results (or the error). */
 import { parentPort, workerData } from 'node:worker_threads';
-import type { StockSeries } from '../engine/series';
+import type { StockSeries } from '../engine/data/series';
 import { computeRun } from './run-compute';
 import type { RunOptions } from './run.schemas';
 

@@ -1,12 +1,12 @@
 /** Contract of the runs API: shared with the client through `import type`. */
 import { z } from 'zod';
-import type { Branch } from '../engine/continuation';
-import type { EarlyWarning } from '../engine/early-warning';
-import type { PredatorPreyFit } from '../engine/fit-predator-prey';
-import type { SurplusFitSummary } from '../engine/fit-summary';
-import type { FoldAnalysis } from '../engine/fold';
+import type { Branch } from '../engine/numerics/continuation';
+import type { EarlyWarning } from '../engine/diagnostics/early-warning';
+import type { PredatorPreyFit } from '../engine/linked/fit-predator-prey';
+import type { SurplusFitSummary } from '../engine/fit/fit-summary';
+import type { FoldAnalysis } from '../engine/surplus/fold';
 import type { QuotaStudy } from '../engine/assessment';
-import type { Replicate } from '../engine/bootstrap';
+import type { Replicate } from '../engine/uncertainty/bootstrap';
 
 export const SURPLUS_MODELS = ['schaefer', 'pella-tomlinson', 'fox'] as const;
 export const PREDATOR_PREY_MODELS = ['rosenzweig-macarthur', 'lotka-volterra'] as const;

@@ -17,10 +17,16 @@ export function localSecret(name: string): string {
 
 export type Profile = 'demo' | 'test';
 
+/** Shifts every local port, so several checkouts on one machine can run their demo and tests side by side. */
+const OFFSET = Number(process.env.BRINKMARK_PORT_OFFSET ?? 0);
+
 const PROFILES = {
-  demo: { datadir: join(DATA, 'mariadb'), dbPort: 4306, db: 'brinkmark', appPort: 4300, smtp: 4325, stripe: 4312, mailDir: join(DATA, 'mail') },
-  test: { datadir: join(DATA, 'mariadb-test'), dbPort: 4316, db: 'brinkmark_test', appPort: 4320, smtp: 4335, stripe: 4322, mailDir: join(DATA, 'mail-test') },
+  demo: { datadir: join(DATA, 'mariadb'), dbPort: 4306 + OFFSET, db: 'brinkmark', appPort: 4300 + OFFSET, smtp: 4325 + OFFSET, stripe: 4312 + OFFSET, mailDir: join(DATA, 'mail') },
+  test: { datadir: join(DATA, 'mariadb-test'), dbPort: 4316 + OFFSET, db: 'brinkmark_test', appPort: 4320 + OFFSET, smtp: 4335 + OFFSET, stripe: 4322 + OFFSET, mailDir: join(DATA, 'mail-test') },
 } as const;
+
+/** First of the ports that specs may take for servers of their own (4390 … 4399 before the offset). */
+export const TEST_PORT_BASE = 4390 + OFFSET;
 
 /** The MariaDB server and process environment of a profile (demo data or tests). */
 export function profile(name: Profile) {
@@ -38,6 +44,7 @@ export function profile(name: Profile) {
     MAIL_FAKE_DIR: p.mailDir,
     STRIPE_API_BASE: `http://127.0.0.1:${p.stripe}`,
     STRIPE_WEBHOOK_SECRET: 'whsec_brinkmark_local',
+    TEST_PORT_BASE: String(TEST_PORT_BASE),
   };
   const fakes = { smtp: p.smtp, stripe: p.stripe, mailDir: p.mailDir, webhookUrl: `${env.PUBLIC_URL}/api/stripe/webhook`, stripeWebhookSecret: env.STRIPE_WEBHOOK_SECRET! };
   return { server: mariaDbServer(p.datadir, p.dbPort), env, fakes, db: { name: p.db, user: 'brinkmark', password: env.DB_PASSWORD! } };

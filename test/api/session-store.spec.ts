@@ -3,7 +3,7 @@ import { DEMO_PASSWORD } from '../../seeders/demo-people';
 import { spawnServer } from '../support/server-process';
 import { demoEmail, testDb } from './support/test-app';
 
-const PORT = 4391;
+const PORT = Number(process.env.TEST_PORT_BASE ?? 4390) + 1;
 const BASE = `http://127.0.0.1:${PORT}`;
 const startServer = () => spawnServer(PORT, { CLIENT_DIR: '.data/no-client' });
 

@@ -15,7 +15,7 @@ describe('assessor, end to end in headless Chromium', () => {
 
   beforeAll(async () => {
     mkdirSync('.data/screenshots', { recursive: true });
-    server = await startServer(4393, 'brinkmark_scratch');
+    server = await startServer(Number(process.env.TEST_PORT_BASE ?? 4390) + 3, 'brinkmark_scratch');
     browser = await launchBrowser();
     page = await (await browser.newContext({ viewport: { width: 1360, height: 900 }, acceptDownloads: true })).newPage();
     page.on('pageerror', (e) => errors.push(e.message));

@@ -41,7 +41,7 @@ describe('board and licensee, end to end in headless Chromium', () => {
   }
 
   beforeAll(async () => {
-    server = await startServer(4394, 'brinkmark_scratch');
+    server = await startServer(Number(process.env.TEST_PORT_BASE ?? 4390) + 4, 'brinkmark_scratch');
     browser = await launchBrowser();
     proposalId = await submitGrouseProposal(server.base);
   });

@@ -1,7 +1,7 @@
 /** npm run bench: timings of the engine's hot paths, printed as a table (not a test). */
 import { bootstrapFit } from '../assessment';
-import { fitSurplusRaw, surplusProblem } from '../fit-surplus';
-import { summariseFit } from '../fit-summary';
+import { fitSurplusRaw, surplusProblem } from '../surplus/fit-surplus';
+import { summariseFit } from '../fit/fit-summary';
 import { SINGLE_STOCKS, simulateSingle } from '../../../seeders/series-generator';
 
 function time<T>(f: () => T, minMs = 400): { ms: number; runs: number; last: T } {

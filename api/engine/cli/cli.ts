@@ -9,8 +9,8 @@
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { assessSurplus, bootstrapFit, ENGINE_VERSION, quotaStudy } from '../assessment';
-import { parseStockCsv } from '../csv';
-import type { SurplusModelName } from '../surplus';
+import { parseStockCsv } from '../data/csv';
+import type { SurplusModelName } from '../surplus/surplus';
 
 class UsageError extends Error {}
 

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, ElementRef, effect, input, signal, viewChild } from '@angular/core';
 import { line, pointer, scaleLinear, select } from 'd3';
-import type { FoldPoint } from '../../../api/engine/fold';
+import type { FoldPoint } from '../../../api/engine/surplus/fold';
 import { PALETTE, axes, frame, legend, short } from './chart-kit';
 
 export interface BifurcationData {

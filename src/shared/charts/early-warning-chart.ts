@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, ElementRef, effect, input, viewChild } from '@angular/core';
 import { line, scaleLinear } from 'd3';
-import type { EarlyWarning } from '../../../api/engine/early-warning';
+import type { EarlyWarning } from '../../../api/engine/diagnostics/early-warning';
 import { PALETTE, axes, frame } from './chart-kit';
 
 /** Rolling variance and lag-1 autocorrelation of survey residuals, with Kendall's τ of each trend. */

@@ -1,5 +1,5 @@
-import type { Replicate } from './bootstrap';
-import { quantile } from './bootstrap';
+import type { Replicate } from '../uncertainty/bootstrap';
+import { quantile } from '../uncertainty/bootstrap';
 import { project } from './projection';
 import { proposeQuota, rampCatch } from './quota';
 

@@ -2,11 +2,11 @@
  * Maximum-likelihood fit of a surplus-production model (Schaefer, Pella-Tomlinson, Fox) to catches
  * and survey indices: lognormal errors, q and σ concentrated out, several Nelder-Mead starts.
  */
-import { concentratedIndexFit } from './likelihood';
-import { minimise } from './nelder-mead';
+import { concentratedIndexFit } from '../fit/likelihood';
+import { minimise } from '../numerics/nelder-mead';
 import { biomassPath, referencePoints, type SurplusModelName, type SurplusParams } from './surplus';
-import { filledCatches, type StockSeries } from './series';
-import { type Bound, toFree, toNatural } from './transforms';
+import { filledCatches, type StockSeries } from '../data/series';
+import { type Bound, toFree, toNatural } from '../numerics/transforms';
 
 export interface SurplusFitOptions {
   model: SurplusModelName;

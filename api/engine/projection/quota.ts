@@ -4,7 +4,7 @@
  * by the ramp rule: a hockey-stick F = F_target·min(1, (B/B_MSY − limit)/(trigger − limit)), zero
  * below the limit (common practice; our name for this family of harvest control rules).
  */
-import { quantile, type Replicate } from './bootstrap';
+import { quantile, type Replicate } from '../uncertainty/bootstrap';
 
 export interface RampRule {
   /** B/B_MSY below which the rule allows no catch. */

@@ -3,7 +3,7 @@
  * fold (saddle-node) h* where the stable equilibrium and the unstable threshold meet, found by
  * numerical continuation (and exactly for the logistic: h* = rK/4, Clark 1990).
  */
-import { continueBranch } from './continuation';
+import { continueBranch } from '../numerics/continuation';
 import { production, productionSlope, type SurplusModelName, type SurplusParams } from './surplus';
 
 export interface FoldPoint {

@@ -3,7 +3,7 @@
  * under annual catches (constant rate within each year), integrated with odex.
  */
 import { logisticHarvest } from './logistic-harvest';
-import { integrate } from './ode';
+import { integrate } from '../numerics/ode';
 
 export type SurplusModelName = 'schaefer' | 'pella-tomlinson' | 'fox';
 

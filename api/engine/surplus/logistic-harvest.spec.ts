@@ -1,5 +1,5 @@
 import { logisticFold, logisticHarvest } from './logistic-harvest';
-import { integrate } from './ode';
+import { integrate } from '../numerics/ode';
 import { biomassPath } from './surplus';
 
 // Check values: ../shared/check-values.md (computed with an independent numerical library);

@@ -3,11 +3,11 @@
  * I*_t = q̂·B̂_t·e^{ε*_t} with ε* drawn with replacement from each survey's fitted log residuals,
  * refitted from the maximum-likelihood point.
  */
-import { fitSurplusRaw, type SurplusFitOptions } from './fit-surplus';
-import type { SurplusFitSummary } from './fit-summary';
-import { createRng } from './random';
-import { referencePoints } from './surplus';
-import type { StockSeries } from './series';
+import { fitSurplusRaw, type SurplusFitOptions } from '../surplus/fit-surplus';
+import type { SurplusFitSummary } from '../fit/fit-summary';
+import { createRng } from '../numerics/random';
+import { referencePoints } from '../surplus/surplus';
+import type { StockSeries } from '../data/series';
 
 export interface Replicate {
   r: number;

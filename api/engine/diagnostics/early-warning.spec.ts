@@ -1,5 +1,5 @@
 import { sampleCorrelation, sampleVariance } from 'simple-statistics';
-import { createRng } from './random';
+import { createRng } from '../numerics/random';
 import { detrendLinear, earlyWarning, kendallTauB, lag1Autocorrelation, variance } from './early-warning';
 
 // Check values: ../shared/check-values.md (Scheffer et al. 2009, Nature 461:53; Dakos et al. 2012,

@@ -1,4 +1,4 @@
-import { integrate } from './ode';
+import { integrate } from '../numerics/ode';
 import { equilibriumStability, harvestBifurcations, interiorEquilibrium, predatorPreyRhs, rmHopfK, type PredatorPreySpec } from './predator-prey';
 
 // ../shared/check-values.md: Volterra (1926) Nature 118:558; Rosenzweig & MacArthur (1963) Am. Nat.

@@ -2,7 +2,7 @@
 import { availableParallelism } from 'node:os';
 import type { Worker } from 'node:worker_threads';
 import type { BootstrapRequest, Replicate } from './bootstrap';
-import { tsWorker } from './ts-worker';
+import { tsWorker } from '../numerics/ts-worker';
 
 export interface PoolOptions {
   workers?: number;

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { formatStockCsv, parseStockCsv } from './csv';
 
-const FIXTURES = resolve(import.meta.dirname, '..', '..', 'test', 'fixtures', 'bad-csv');
+const FIXTURES = resolve(import.meta.dirname, '..', '..', '..', 'test', 'fixtures', 'bad-csv');
 const read = (f: string) => readFileSync(join(FIXTURES, f), 'utf8');
 
 // One malformed file per row: the first problem reported must name this line, column and reason.
@@ -67,7 +67,7 @@ describe('stock CSV parser', () => {
 
   it('reads every demo data file as a clean series', () => {
     for (const code of ['blue-lip-crab', 'silver-smelt', 'red-grouse', 'sprat-ridge-cod']) {
-      const r = parseStockCsv(readFileSync(resolve(import.meta.dirname, '..', '..', 'seeders', 'data', `${code}.csv`), 'utf8'));
+      const r = parseStockCsv(readFileSync(resolve(import.meta.dirname, '..', '..', '..', 'seeders', 'data', `${code}.csv`), 'utf8'));
       expect(r.ok).withContext(code).toBeTrue();
     }
   });

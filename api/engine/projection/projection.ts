@@ -2,11 +2,11 @@
  * Stochastic projections under a constant catch: each bootstrap replicate's parameters, its
  * end-of-series biomass, and lognormal process noise B_{t+1} = S(B_t, C)·exp(σ_p·ε − σ_p²/2).
  */
-import type { Replicate } from './bootstrap';
-import { quantile } from './bootstrap';
-import { createRng } from './random';
-import { biomassPath, productionSlope, type SurplusModelName } from './surplus';
-import { equilibriaAt, surplusFold } from './fold';
+import type { Replicate } from '../uncertainty/bootstrap';
+import { quantile } from '../uncertainty/bootstrap';
+import { createRng } from '../numerics/random';
+import { biomassPath, productionSlope, type SurplusModelName } from '../surplus/surplus';
+import { equilibriaAt, surplusFold } from '../surplus/fold';
 
 export interface ProjectionRequest {
   model: SurplusModelName;

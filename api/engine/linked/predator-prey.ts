@@ -4,9 +4,9 @@
  * Rosenzweig-MacArthur               dN = rN(1 − N/K) − aNP/(1 + ahN) − H_N,  dP = e·aNP/(1 + ahN) − mP − H_P
  * (Rosenzweig & MacArthur 1963, Am. Nat. 97:209). Harvest is a constant catch and/or a rate F·N.
  */
-import { continueBranch, type Branch } from './continuation';
-import { eigenvalues, type Eigen } from './linear';
-import { integrate } from './ode';
+import { continueBranch, type Branch } from '../numerics/continuation';
+import { eigenvalues, type Eigen } from '../numerics/linear';
+import { integrate } from '../numerics/ode';
 
 export type PredatorPreyModelName = 'lotka-volterra' | 'rosenzweig-macarthur';
 

@@ -1,10 +1,10 @@
 /** Turns a raw surplus-production fit into what an assessor reads: estimates with intervals, diagnostics. */
-import { covarianceFromHessian, deltaVariance, gradient, hessian } from './hessian';
+import { covarianceFromHessian, deltaVariance, gradient, hessian } from '../numerics/hessian';
 import { concentratedIndexFit } from './likelihood';
-import { referencePoints } from './surplus';
-import type { RawFit } from './fit-surplus';
-import type { StockSeries } from './series';
-import { rangePosition } from './transforms';
+import { referencePoints } from '../surplus/surplus';
+import type { RawFit } from '../surplus/fit-surplus';
+import type { StockSeries } from '../data/series';
+import { rangePosition } from '../numerics/transforms';
 
 export interface Estimate {
   name: string;

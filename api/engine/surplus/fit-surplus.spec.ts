@@ -1,11 +1,11 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { assessSurplus, bootstrapFit } from './assessment';
-import { quantile, runBootstrap } from './bootstrap';
-import { BootstrapCancelled, bootstrapInWorkers } from './bootstrap-pool';
-import { formatStockCsv } from './csv';
-import { fitPredatorPrey } from './fit-predator-prey';
-import { demoSeries, SINGLE_STOCKS, SPRAT_COD_TRUTH } from '../../seeders/series-generator';
+import { assessSurplus, bootstrapFit } from '../assessment';
+import { quantile, runBootstrap } from '../uncertainty/bootstrap';
+import { BootstrapCancelled, bootstrapInWorkers } from '../uncertainty/bootstrap-pool';
+import { formatStockCsv } from '../data/csv';
+import { fitPredatorPrey } from '../linked/fit-predator-prey';
+import { demoSeries, SINGLE_STOCKS, SPRAT_COD_TRUTH } from '../../../seeders/series-generator';
 
 // The truth is the invented scenario of ../shared/scenario.md; the data are simulated from it with a
 // fixed seed (seeders/series-generator.ts). A fit must recover it within its intervals.
@@ -81,7 +81,7 @@ describe('bootstrap in worker threads', () => {
 describe('demo data generator', () => {
   it('reproduces the committed seeders/data files exactly from its seed', () => {
     for (const [code, series] of Object.entries(demoSeries())) {
-      const file = readFileSync(resolve(import.meta.dirname, '..', '..', 'seeders', 'data', `${code}.csv`), 'utf8');
+      const file = readFileSync(resolve(import.meta.dirname, '..', '..', '..', 'seeders', 'data', `${code}.csv`), 'utf8');
       expect(formatStockCsv(series)).withContext(code).toBe(file);
     }
   });

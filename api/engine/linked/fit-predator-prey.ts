@@ -4,13 +4,13 @@
  * Rosenzweig-MacArthur conversion efficiency e and handling time h are fixed (common practice:
  * they are rarely identifiable from two abundance series).
  */
-import { covarianceFromHessian, deltaVariance, hessian } from './hessian';
-import { concentratedIndexFit } from './likelihood';
-import { minimise } from './nelder-mead';
+import { covarianceFromHessian, deltaVariance, hessian } from '../numerics/hessian';
+import { concentratedIndexFit } from '../fit/likelihood';
+import { minimise } from '../numerics/nelder-mead';
 import { equilibriumStability, interiorEquilibrium, predatorPreyPath, type PredatorPreySpec } from './predator-prey';
-import { filledCatches, type StockSeries } from './series';
-import { type Bound, toFree, toNatural } from './transforms';
-import type { Estimate } from './fit-summary';
+import { filledCatches, type StockSeries } from '../data/series';
+import { type Bound, toFree, toNatural } from '../numerics/transforms';
+import type { Estimate } from '../fit/fit-summary';
 
 export interface PredatorPreyFitOptions {
   model: 'rosenzweig-macarthur' | 'lotka-volterra';
