@@ -1,7 +1,8 @@
 /**
  * npm test: installs what the tests need (MariaDB, Chromium, poppler), starts a private test
  * database, runs the server specs (jasmine + supertest) and the client specs (Karma in headless
- * Chromium), and ends with one line "total: N passed, N failed". Exits non-zero on any failure.
+ * Chromium), and ends with one line "total: N passed, N failed, N skipped". Exits non-zero on any
+ * failure and on any skipped spec (xit, xdescribe, pending, or the rest of a focused run).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
@@ -11,13 +12,13 @@ import { startFakes } from './fakes';
 import { ensureDatabase, startMariaDb, stopMariaDb } from './mariadb';
 import { DATA, ROOT, profile } from './local-env';
 
-interface Totals { passed: number; failed: number; error?: boolean }
+interface Totals { passed: number; failed: number; skipped?: number; error?: boolean }
 
 const only = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length);
 const results: { name: string; totals: Totals; exit: number }[] = [];
 
 function readTotals(file: string): Totals {
-  if (!existsSync(file)) return { passed: 0, failed: 0, error: true };
+  if (!existsSync(file)) return { passed: 0, failed: 0, skipped: 0, error: true };
   return JSON.parse(readFileSync(file, 'utf8')) as Totals;
 }
 
@@ -27,7 +28,7 @@ function run(name: string, cmd: string, args: string[], env: NodeJS.ProcessEnv, 
   const started = Date.now();
   const r = spawnSync(cmd, args, { cwd: ROOT, env, stdio: 'inherit' });
   const totals = readTotals(totalsFile);
-  console.log(`${name}: ${totals.passed} passed, ${totals.failed} failed (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+  console.log(`${name}: ${totals.passed} passed, ${totals.failed} failed, ${totals.skipped ?? 0} skipped (${((Date.now() - started) / 1000).toFixed(1)} s)`);
   results.push({ name, totals, exit: r.status ?? 1 });
 }
 
@@ -84,7 +85,9 @@ try {
 
 const passed = results.reduce((s, r) => s + r.totals.passed, 0);
 const failed = results.reduce((s, r) => s + r.totals.failed, 0);
+const skipped = results.reduce((s, r) => s + (r.totals.skipped ?? 0), 0);
 const broken = results.filter((r) => r.exit !== 0 || r.totals.error).map((r) => r.name);
 if (broken.length) console.log(`\nRunners that did not finish cleanly: ${broken.join(', ')}`);
-console.log(`\ntotal: ${passed} passed, ${failed} failed`);
-process.exit(failed > 0 || broken.length > 0 || passed === 0 ? 1 : 0);
+if (skipped) console.log('\nSkipped or focused specs fail the run: remove xit/xdescribe/fit/fdescribe/pending().');
+console.log(`\ntotal: ${passed} passed, ${failed} failed, ${skipped} skipped`);
+process.exit(failed > 0 || skipped > 0 || broken.length > 0 || passed === 0 ? 1 : 0);
