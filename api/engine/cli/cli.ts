@@ -4,6 +4,8 @@
  *   npm run --silent cli -- fold  --model schaefer --input FILE.csv
  *   npm run --silent cli -- quota --model schaefer --input FILE.csv [--risk 0.05] [--replicates 1000]
  *        [--limit 0.4] [--trigger 0.8] [--ftarget 1] [--candidates 1000,1500] [--years 10] [--process-sd 0.1]
+ *   npm run --silent cli -- cascade --model ricker --params r=2.8,K=1000 [--harvest FROM:TO:STEP]   (cascade-command.ts)
+ *   npm run --silent cli -- reserve --params r=0.5,K=100,D=2 --coast 60 --reserve 20:40 [--fishing F]   (reserve-command.ts)
  * Prints JSON on standard output; on bad input prints the problems on standard error and exits 2.
  */
 import { readFileSync } from 'node:fs';
@@ -11,8 +13,8 @@ import { parseArgs } from 'node:util';
 import { assessSurplus, bootstrapFit, ENGINE_VERSION, quotaStudy } from '../assessment';
 import { parseStockCsv } from '../data/csv';
 import type { SurplusModelName } from '../surplus/surplus';
-
-class UsageError extends Error {}
+import { UsageError } from './command-args';
+import { cascadeCommand } from './cascade-command';
 
 const MODELS: SurplusModelName[] = ['schaefer', 'pella-tomlinson', 'fox'];
 
@@ -25,7 +27,8 @@ function num(v: string | undefined, name: string, def: number): number {
 
 async function main(argv: string[]): Promise<unknown> {
   const [command, ...rest] = argv;
-  if (!command || !['fit', 'fold', 'quota'].includes(command)) throw new UsageError('usage: cli fit|fold|quota --model MODEL --input FILE.csv [options]');
+  if (command === 'cascade') return { engine: ENGINE_VERSION, ...cascadeCommand(rest) as object };
+  if (!command || !['fit', 'fold', 'quota'].includes(command)) throw new UsageError('usage: cli fit|fold|quota --model MODEL --input FILE.csv [options] | cli cascade ... | cli reserve ...');
   const { values: o } = parseArgs({
     args: rest, strict: true,
     options: {

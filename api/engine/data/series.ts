@@ -15,6 +15,8 @@ export interface StockSeries {
   /** Predator removals per year, for linked predator-prey stocks (then `catches` is the prey's). */
   predatorCatches?: (number | null)[];
   indices: SurveyIndex[];
+  /** Spawners and the recruits they produced, per spawning year, for stock-recruitment files. */
+  stockRecruit?: { spawners: (number | null)[]; recruits: (number | null)[] };
 }
 
 /** Catches with gaps filled by linear interpolation (nearest value at the ends), and the years filled. */
