@@ -7,6 +7,8 @@ import { AdvisoryPublisher } from '../advisories/advisory.publisher';
 import { ConflictError, ForbiddenError, HttpError, NotFoundError } from '../http/http-error';
 import { Proposal } from '../proposals/proposal.model';
 import { userNames } from '../users/user-names';
+import type { ProposalListItem } from '../proposals/proposal.schemas';
+import { listItems } from './proposal-standing';
 import { BoardRules, Comment, Decision, Vote, type VoteCount } from './board.models';
 import type { AuditView, BoardView, CommentView } from './board.schemas';
 
@@ -116,11 +118,9 @@ export class BoardService {
     };
   }
 
-  /** Submitted proposals for the board, with whether each is decided. */
-  async queue() {
-    const proposals = await Proposal.findAll({ where: { status: 'submitted' }, order: [['submittedAt', 'DESC']] });
-    const decisions = await Decision.findAll({ where: { proposalId: proposals.map((p) => p.id) } });
-    return proposals.map((p) => ({ ...p.toView(), decision: decisions.find((d) => d.proposalId === p.id)?.outcome ?? null }));
+  /** Submitted proposals for the board, newest first: who submitted each, for which stock and region, and where it stands. */
+  async queue(): Promise<ProposalListItem[]> {
+    return listItems(await Proposal.findAll({ where: { status: 'submitted' }, order: [['submittedAt', 'DESC'], ['id', 'DESC']] }));
   }
 
   private async submitted(id: number): Promise<Proposal> {

@@ -59,3 +59,16 @@ export interface ProposalView {
   createdAt: string;
   updatedAt: string;
 }
+
+/** Where a submitted proposal stands with the board: its decision and the limit now in force. */
+export interface ProposalStanding {
+  outcome: 'approved' | 'rejected';
+  /** The limit in force: the newest advisory's (after any correction), or null when rejected. */
+  limit: number | null;
+  /** The limit was corrected after the decision (by a chair's correction or a new vote). */
+  corrected: boolean;
+  decidedAt: string;
+}
+
+/** A proposal in a list: who drafted it, for which stock and region, and where it stands. */
+export type ProposalListItem = ProposalView & { stockName: string; regionName: string; standing: ProposalStanding | null };

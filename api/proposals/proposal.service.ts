@@ -11,7 +11,8 @@ import { OutboxMail } from '../mail/outbox.model';
 import { Stock } from '../stocks/stock.model';
 import { User } from '../users/user.model';
 import { Proposal } from './proposal.model';
-import type { CandidateFigures, CreateProposalBody, ProposalFigures, ProposalView, UpdateProposalBody } from './proposal.schemas';
+import { listItems } from '../board/proposal-standing';
+import type { CandidateFigures, CreateProposalBody, ProposalFigures, ProposalListItem, ProposalView, UpdateProposalBody } from './proposal.schemas';
 
 async function surplusResults(runId: number): Promise<{ run: Run; results: SurplusRunResults }> {
   const run = await Run.findByPk(runId);
@@ -118,10 +119,9 @@ export class ProposalService {
     return this.view(p);
   }
 
-  async listForStock(stockId: number, viewer: Express.User): Promise<ProposalView[]> {
+  async listForStock(stockId: number, viewer: Express.User): Promise<ProposalListItem[]> {
     const where = viewer.role === 'board' ? { stockId, status: 'submitted' as const } : { stockId };
-    const rows = await Proposal.findAll({ where, order: [['id', 'DESC']] });
-    return Promise.all(rows.map((p) => this.view(p)));
+    return listItems(await Proposal.findAll({ where, order: [['id', 'DESC']] }));
   }
 
   private async draft(id: number, t: Transaction): Promise<Proposal> {

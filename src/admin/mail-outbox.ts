@@ -18,13 +18,13 @@ interface Message { subject: string; from: string; to: string; text: string; att
     <p class="bm-lead">Every e-mail Brinkmark queued, with its attempts; and the messages the local mail server received.</p>
     @if (data(); as d) {
       <h3>Queued and sent</h3>
-      <table class="bm-t" data-testid="outbox"><thead><tr><th>#</th><th>To</th><th>Subject</th><th>Status</th><th>Attempts</th><th>Last error</th><th>Sent</th></tr></thead><tbody>
+      <div class="bm-scroll"><table class="bm-t" data-testid="outbox"><thead><tr><th>#</th><th>To</th><th>Subject</th><th>Status</th><th>Attempts</th><th>Last error</th><th>Sent</th></tr></thead><tbody>
         @for (m of d.outbox; track m.id) { <tr><td>{{ m.id }}</td><td>{{ m.toAddress }}</td><td>{{ m.subject }}</td><td>{{ m.status }}</td><td>{{ m.attempts }}</td><td>{{ m.lastError ?? '' }}</td><td>{{ m.sentAt | date: 'd MMM, HH:mm' }}</td></tr> }
-      </tbody></table>
+      </tbody></table></div>
       <h3>Received by the local mail server</h3>
-      <table class="bm-t" data-testid="received"><thead><tr><th>Date</th><th>To</th><th>Subject</th><th>Attachments</th><th></th></tr></thead><tbody>
+      <div class="bm-scroll"><table class="bm-t" data-testid="received"><thead><tr><th>Date</th><th>To</th><th>Subject</th><th>Attachments</th><th></th></tr></thead><tbody>
         @for (m of d.received; track m.file) { <tr><td>{{ m.date | date: 'd MMM, HH:mm:ss' }}</td><td>{{ m.to }}</td><td>{{ m.subject }}</td><td>{{ m.attachments.join(', ') }}</td><td><button mat-button (click)="show(m.file)">Show</button></td></tr> }
-      </tbody></table>
+      </tbody></table></div>
     }
     @if (open(); as m) {
       <section class="bm-msg"><h3>{{ m.subject }}</h3><div class="bm-small">From {{ m.from }} to {{ m.to }}</div><pre>{{ m.text }}</pre>

@@ -2,16 +2,14 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import type { BoardView } from '../../api/board/board.schemas';
-import type { ProposalView } from '../../api/proposals/proposal.schemas';
-
-export type QueuedProposal = ProposalView & { decision: 'approved' | 'rejected' | null };
+import type { ProposalListItem } from '../../api/proposals/proposal.schemas';
 
 @Injectable({ providedIn: 'root' })
 export class BoardApi {
   private readonly http = inject(HttpClient);
 
-  queue(): Observable<QueuedProposal[]> {
-    return this.http.get<{ proposals: QueuedProposal[] }>('/api/board/proposals').pipe(map((r) => r.proposals));
+  queue(): Observable<ProposalListItem[]> {
+    return this.http.get<{ proposals: ProposalListItem[] }>('/api/board/proposals').pipe(map((r) => r.proposals));
   }
 
   view(proposalId: number): Observable<BoardView> {

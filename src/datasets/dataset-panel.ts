@@ -19,7 +19,7 @@ import { DatasetUpload } from './dataset-upload';
       <bm-dataset-upload [stockId]="stockId()" (saved)="reload()" />
     }
     <h3>Versions</h3>
-    <table mat-table [dataSource]="versions()" class="bm-table" data-testid="version-table">
+    <div class="bm-scroll"><table mat-table [dataSource]="versions()" class="bm-table" data-testid="version-table">
       <ng-container matColumnDef="version"><th mat-header-cell *matHeaderCellDef>Version</th><td mat-cell *matCellDef="let d"><strong>v{{ d.version }}</strong></td></ng-container>
       <ng-container matColumnDef="note"><th mat-header-cell *matHeaderCellDef>Note</th><td mat-cell *matCellDef="let d">{{ d.note }}</td></ng-container>
       <ng-container matColumnDef="years"><th mat-header-cell *matHeaderCellDef>Years</th><td mat-cell *matCellDef="let d">{{ d.firstYear }}–{{ d.lastYear }}</td></ng-container>
@@ -30,7 +30,7 @@ import { DatasetUpload } from './dataset-upload';
       <tr mat-header-row *matHeaderRowDef="cols"></tr>
       <tr mat-row *matRowDef="let row; columns: cols"></tr>
       <tr class="mat-row" *matNoDataRow><td class="mat-cell bm-empty" [attr.colspan]="cols.length">No data loaded yet.</td></tr>
-    </table>
+    </table></div>
   `,
   styles: `h3 { color: var(--bm-ink); margin: 20px 0 10px; } .bm-table { width: 100%; background: #fff; border: 1px solid var(--bm-line); } .bm-empty { padding: 14px; color: var(--bm-muted); }`,
   changeDetection: ChangeDetectionStrategy.OnPush,

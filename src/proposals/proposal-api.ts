@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
-import type { ProposalView } from '../../api/proposals/proposal.schemas';
+import type { ProposalListItem, ProposalView } from '../../api/proposals/proposal.schemas';
 
 @Injectable({ providedIn: 'root' })
 export class ProposalApi {
@@ -27,7 +27,7 @@ export class ProposalApi {
     return this.http.get<{ proposal: ProposalView }>(`/api/proposals/${id}`).pipe(map((r) => r.proposal));
   }
 
-  listForStock(stockId: number): Observable<ProposalView[]> {
-    return this.http.get<{ proposals: ProposalView[] }>(`/api/stocks/${stockId}/proposals`).pipe(map((r) => r.proposals));
+  listForStock(stockId: number): Observable<ProposalListItem[]> {
+    return this.http.get<{ proposals: ProposalListItem[] }>(`/api/stocks/${stockId}/proposals`).pipe(map((r) => r.proposals));
   }
 }

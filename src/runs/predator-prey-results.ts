@@ -27,11 +27,11 @@ import { SeriesChart, type SeriesLine } from '../shared/charts/series-chart';
     <div class="bm-two">
       <section class="bm-card">
         <h3>Estimates</h3>
-        <table class="bm-est"><thead><tr><th></th><th>Estimate</th><th>95% (Hessian)</th></tr></thead><tbody>
+        <div class="bm-scroll"><table class="bm-est"><thead><tr><th></th><th>Estimate</th><th>95% (Hessian)</th></tr></thead><tbody>
           @for (e of results().fit.estimates; track e.name) {
             <tr><td>{{ e.name }}</td><td>{{ e.value | sig }}</td><td>@if (e.ci95; as c) { {{ c[0] | sig }} – {{ c[1] | sig }} } @else { — }</td></tr>
           }
-        </tbody></table>
+        </tbody></table></div>
         @if (results().fit.equilibrium; as eq) {
           <p>Equilibrium without harvest: prey {{ eq.prey | number: '1.0-0' }}, predator {{ eq.predator | number: '1.0-0' }} {{ unit() }},
             <strong>{{ eq.stable ? 'stable' : 'unstable' }}</strong>; eigenvalues {{ eq.eigen.re[0] | number: '1.3-3' }} ± {{ eq.eigen.im[0] | number: '1.3-3' }}i.</p>
@@ -39,11 +39,11 @@ import { SeriesChart, type SeriesLine } from '../shared/charts/series-chart';
       </section>
       <section class="bm-card" data-testid="bifurcation-events">
         <h3>Bifurcations as catch rises</h3>
-        <table class="bm-est"><thead><tr><th>Catch of</th><th>Kind</th><th>At catch ({{ unit() }}/yr)</th><th>Prey</th><th>Predator</th></tr></thead><tbody>
+        <div class="bm-scroll"><table class="bm-est"><thead><tr><th>Catch of</th><th>Kind</th><th>At catch ({{ unit() }}/yr)</th><th>Prey</th><th>Predator</th></tr></thead><tbody>
           @for (e of events(); track $index) {
             <tr><td>{{ e.of }}</td><td>{{ e.label }}</td><td>{{ e.h | number: '1.0-0' }}</td><td>{{ e.x[0] | number: '1.0-0' }}</td><td>{{ e.x[1] | number: '1.0-0' }}</td></tr>
           } @empty { <tr><td colspan="5">No bifurcation up to four times the largest historical catch.</td></tr> }
-        </tbody></table>
+        </tbody></table></div>
         <p class="bm-small">Fold: stable and unstable equilibria meet and vanish. Hopf: the equilibrium turns into a limit cycle. Boundary: a species reaches zero (transcritical with the extinction equilibrium).</p>
       </section>
     </div>

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -14,6 +15,12 @@ import { RunApi } from './run-api';
 
 const SINGLE = [['schaefer', 'Schaefer'], ['pella-tomlinson', 'Pella-Tomlinson'], ['fox', 'Fox']] as const;
 const LINKED = [['rosenzweig-macarthur', 'Rosenzweig-MacArthur'], ['lotka-volterra', 'Lotka-Volterra (logistic prey)']] as const;
+
+/** The ramp rule's trigger must lie above its limit; checked on the trigger so the message sits under it. */
+function triggerAboveLimit(c: AbstractControl): ValidationErrors | null {
+  const limit = c.parent?.get('limit')?.value as number | null | undefined;
+  return typeof limit === 'number' && typeof c.value === 'number' && c.value <= limit ? { notAboveLimit: true } : null;
+}
 
 /** Options of a new run, validated here and again by the server. */
 @Component({
@@ -42,12 +49,22 @@ export class RunForm {
     seed: [1, [Validators.required, Validators.min(0)]],
     risk: [0.05, [Validators.required, Validators.min(0.001), Validators.max(0.49)]],
     limit: [0.4, [Validators.required, Validators.min(0), Validators.max(2)]],
-    trigger: [0.8, [Validators.required, Validators.min(0.01), Validators.max(3)]],
+    trigger: [0.8, [Validators.required, Validators.min(0.01), Validators.max(3), triggerAboveLimit]],
     fTarget: [1, [Validators.required, Validators.min(0.01), Validators.max(2)]],
     years: [10, [Validators.required, Validators.min(1), Validators.max(50)]],
     processSd: [0.1, [Validators.required, Validators.min(0), Validators.max(1)]],
     candidates: ['', Validators.pattern(/^\s*(\d+(\.\d+)?\s*(,\s*\d+(\.\d+)?\s*)*)?$/)],
   });
+
+  constructor() {
+    const c = this.form.controls;
+    c.limit.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => c.trigger.updateValueAndValidity({ emitEvent: false }));
+    // A message about the last attempt goes as soon as the form changes.
+    this.form.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
+      this.failure.set(null);
+      this.serverFields.set({});
+    });
+  }
 
   protected async submit(): Promise<void> {
     const dsId = this.form.controls.datasetId.value || this.datasets()[0]?.id || 0;
@@ -56,7 +73,6 @@ export class RunForm {
     this.form.markAllAsTouched();
     if (this.form.invalid) return;
     const v = this.form.getRawValue();
-    if (v.trigger <= v.limit) { this.failure.set('The trigger must be above the limit.'); return; }
     this.failure.set(null);
     try {
       const run = await firstValueFrom(this.api.start({

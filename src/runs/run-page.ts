@@ -19,7 +19,8 @@ import { SurplusResults } from './surplus-results';
   selector: 'bm-run-page',
   imports: [RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatProgressBarModule, MatButtonModule, MatIconModule, SurplusResults, PredatorPreyResults],
   templateUrl: './run-page.html',
-  styles: `.bm-head { display: flex; align-items: flex-end; gap: 16px; } .bm-grow { flex: 1; }
+  styles: `.bm-head { display: flex; align-items: flex-end; gap: 8px 16px; flex-wrap: wrap; } .bm-grow { flex: 1; }
+    .bm-head > div { min-width: 0; } .bm-head button { white-space: normal; height: auto; min-height: 40px; max-width: 100%; }
     .bm-progress { background: #fff; border: 1px solid var(--bm-line); border-radius: 8px; padding: 16px; margin: 12px 0; }
     .bm-failed { background: #fdecea; border-radius: 8px; padding: 12px 16px; color: var(--bm-danger); display: flex; gap: 8px; align-items: center; }
     .bm-back { display: inline-flex; align-items: center; gap: 4px; text-decoration: none; font-size: 14px; }`,

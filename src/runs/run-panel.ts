@@ -25,7 +25,7 @@ import { RunForm } from './run-form';
       </mat-expansion-panel>
     }
     <h3>Runs compared</h3>
-    <table mat-table [dataSource]="runs()" class="bm-table" data-testid="run-table">
+    <div class="bm-scroll"><table mat-table [dataSource]="runs()" class="bm-table" data-testid="run-table">
       <ng-container matColumnDef="id"><th mat-header-cell *matHeaderCellDef>Run</th><td mat-cell *matCellDef="let r"><a [routerLink]="['/runs', r.id]">#{{ r.id }}</a></td></ng-container>
       <ng-container matColumnDef="model"><th mat-header-cell *matHeaderCellDef>Model</th><td mat-cell *matCellDef="let r">{{ r.model | modelName }}</td></ng-container>
       <ng-container matColumnDef="data"><th mat-header-cell *matHeaderCellDef>Data</th><td mat-cell *matCellDef="let r">v{{ r.datasetVersion }}</td></ng-container>
@@ -41,7 +41,7 @@ import { RunForm } from './run-form';
       <tr mat-header-row *matHeaderRowDef="cols"></tr>
       <tr mat-row *matRowDef="let row; columns: cols"></tr>
       <tr class="mat-row" *matNoDataRow><td class="mat-cell bm-empty" [attr.colspan]="cols.length">No runs yet.</td></tr>
-    </table>
+    </table></div>
   `,
   styles: `h3 { color: var(--bm-ink); margin: 20px 0 10px; } .bm-new { margin-top: 16px; } .bm-table { width: 100%; background: #fff; border: 1px solid var(--bm-line); }
     .bm-empty { padding: 14px; color: var(--bm-muted); } .bm-status { padding: 1px 8px; border-radius: 10px; font-size: 12.5px; background: #eef2f3; }

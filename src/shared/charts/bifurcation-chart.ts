@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, ElementRef, effect, input, signal, 
 import { line, pointer, scaleLinear, select } from 'd3';
 import type { FoldPoint } from '../../../api/engine/surplus/fold';
 import { PALETTE, axes, frame, legend, short } from './chart-kit';
+import { containerWidth, heightFor } from './container-width';
 
 export interface BifurcationData {
   table: FoldPoint[];
@@ -38,10 +39,14 @@ export class BifurcationChart {
   readonly width = input(1100);
   readonly height = input(430);
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
+  private readonly drawWidth = containerWidth(() => this.width());
   protected readonly hover = signal<{ x: number; y: number; h: string; stable: string; unstable: string; rate: string } | null>(null);
 
   constructor() {
-    effect(() => this.draw(this.data(), this.width(), this.height()));
+    effect(() => {
+      const w = this.drawWidth();
+      this.draw(this.data(), w, heightFor(w, this.height()));
+    });
   }
 
   private draw(d: BifurcationData, width: number, height: number): void {

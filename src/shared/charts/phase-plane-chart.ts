@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, ElementRef, effect, input, viewChild } from '@angular/core';
 import { line, scaleLinear } from 'd3';
 import { PALETTE, axes, frame, legend, short } from './chart-kit';
+import { containerWidth, heightFor } from './container-width';
 
 export interface PhasePlaneData {
   prey: number[];
@@ -15,19 +16,21 @@ export interface PhasePlaneData {
 /** Prey against predator: fitted trajectory, both nullclines and the equilibrium. */
 @Component({
   selector: 'bm-phase-plane-chart',
+  styles: `:host { display: block; }`,
   template: `<svg #svg data-chart="phase-plane" role="img" aria-label="Phase plane of prey and predator"></svg>`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PhasePlaneChart {
   readonly data = input.required<PhasePlaneData>();
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
+  private readonly drawWidth = containerWidth(() => 560);
 
   constructor() {
-    effect(() => this.draw(this.data()));
+    effect(() => this.draw(this.data(), this.drawWidth()));
   }
 
-  private draw(d: PhasePlaneData): void {
-    const f = frame(this.svg().nativeElement, 560, 420);
+  private draw(d: PhasePlaneData, width: number): void {
+    const f = frame(this.svg().nativeElement, width, heightFor(width, 420));
     const x = scaleLinear().domain([0, Math.max(...d.prey, d.equilibrium?.prey ?? 0) * 1.25]).range([0, f.width]);
     const y = scaleLinear().domain([0, Math.max(...d.predator, d.equilibrium?.predator ?? 0) * 1.35]).range([f.height, 0]);
     axes(f, x, y, `Prey biomass (${d.unit})`, `Predator biomass (${d.unit})`);

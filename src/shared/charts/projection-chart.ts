@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, ElementRef, effect, input, viewChild } from '@angular/core';
 import { area, line, scaleLinear } from 'd3';
 import { PALETTE, axes, frame, short } from './chart-kit';
+import { containerWidth, heightFor } from './container-width';
 
 export interface ProjectionChartData {
   startYear: number;
@@ -16,6 +17,7 @@ const COLOURS = ['#1f6f7f', '#3f8f5a', '#e08a1e', '#b3261e', '#8a4f9e', '#5a6b70
 /** Projected biomass per candidate quota: median line and 5–95% band, limit reference point marked. */
 @Component({
   selector: 'bm-projection-chart',
+  styles: `:host { display: block; }`,
   template: `<svg #svg data-chart="projection" role="img" aria-label="Projected biomass under candidate quotas"></svg>`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -23,13 +25,14 @@ export class ProjectionChart {
   readonly data = input.required<ProjectionChartData>();
   readonly width = input(1100);
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
+  private readonly drawWidth = containerWidth(() => this.width());
 
   constructor() {
-    effect(() => this.draw(this.data(), this.width()));
+    effect(() => this.draw(this.data(), this.drawWidth()));
   }
 
   private draw(d: ProjectionChartData, width: number): void {
-    const f = frame(this.svg().nativeElement, width, 380);
+    const f = frame(this.svg().nativeElement, width, heightFor(width, 380));
     const n = d.candidates[0]?.median.length ?? 1;
     const x = scaleLinear().domain([d.startYear, d.startYear + n - 1]).range([0, f.width]);
     const yMax = Math.max(d.limit, ...d.candidates.flatMap((c) => c.upper)) * 1.05;
