@@ -15,6 +15,7 @@ import { parseStockCsv } from '../data/csv';
 import type { SurplusModelName } from '../surplus/surplus';
 import { UsageError } from './command-args';
 import { cascadeCommand } from './cascade-command';
+import { reserveCommand } from './reserve-command';
 
 const MODELS: SurplusModelName[] = ['schaefer', 'pella-tomlinson', 'fox'];
 
@@ -28,6 +29,7 @@ function num(v: string | undefined, name: string, def: number): number {
 async function main(argv: string[]): Promise<unknown> {
   const [command, ...rest] = argv;
   if (command === 'cascade') return { engine: ENGINE_VERSION, ...cascadeCommand(rest) as object };
+  if (command === 'reserve') return { engine: ENGINE_VERSION, ...reserveCommand(rest) as object };
   if (!command || !['fit', 'fold', 'quota'].includes(command)) throw new UsageError('usage: cli fit|fold|quota --model MODEL --input FILE.csv [options] | cli cascade ... | cli reserve ...');
   const { values: o } = parseArgs({
     args: rest, strict: true,
