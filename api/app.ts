@@ -2,7 +2,6 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
-import connectSessionSequelize from 'connect-session-sequelize';
 import express, { Router } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -22,15 +21,18 @@ import { proposalRoutes, stockProposalRoutes } from './proposals/proposal.routes
 import { RunQueue } from './runs/run-queue';
 import { runRoutes, stockRunRoutes } from './runs/run.routes';
 import { authRoutes } from './auth/auth.routes';
+import { usePasswordCost } from './auth/auth.service';
 import { createPassport } from './auth/passport';
+import { createSessionStore } from './auth/session-store';
 import type { Config } from './config';
-import { csrfProtection } from './http/csrf';
+import { createCsrf, type Csrf } from './http/csrf';
+import { HealthRegistry } from './health/health';
+import { databaseCheck, healthRoutes } from './health/health.routes';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { regionRoutes } from './regions/region.routes';
 import { stockRoutes } from './stocks/stock.routes';
 import { userRoutes } from './users/user.routes';
 
-const SequelizeStore = connectSessionSequelize(session.Store);
 
 export interface ApiMount {
   base: string;
@@ -51,12 +53,15 @@ interface Services {
   board: BoardService;
   advisories: AdvisoryService;
   subscriptions: SubscriptionService;
+  csrf: Csrf;
+  health: HealthRegistry;
 }
 
 /** Every API router and where it is mounted: the role matrix test walks this list. */
-export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>, { queue, mail, board, advisories, subscriptions }: Services): ApiMount[] {
+export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>, { queue, mail, board, advisories, subscriptions, csrf, health }: Services): ApiMount[] {
   return [
-    { base: '/api/auth', router: authRoutes(config, passport) },
+    { base: '/api/health', router: healthRoutes(health) },
+    { base: '/api/auth', router: authRoutes(config, passport, csrf) },
     { base: '/api/users', router: userRoutes(sequelize) },
     { base: '/api/regions', router: regionRoutes() },
     { base: '/api/stocks', router: stockRoutes() },
@@ -69,16 +74,25 @@ export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<t
     { base: '/api/proposals/:proposalId/board', router: proposalBoardRoutes(board) },
     { base: '/api/board', router: boardRoutes(board) },
     { base: '/api/advisories', router: advisoryRoutes(advisories) },
-    { base: '/api/admin/mail', router: mailRoutes(config) },
+    { base: '/api/admin/mail', router: mailRoutes(config, sequelize, mail) },
     { base: '/api/subscriptions', router: subscriptionRoutes(subscriptions) },
     { base: '/api/audit-events', router: auditRoutes() },
   ];
 }
 
+/** Express's "trust proxy" setting from TRUST_PROXY: off when empty, a hop count, or a list of addresses. */
+function trustProxy(value: string): boolean | number | string {
+  const v = value.trim();
+  if (v === '') return false;
+  return /^\d+$/.test(v) ? Number(v) : v;
+}
+
 export function createApp(deps: AppDeps): express.Express {
   const { config, sequelize } = deps;
   const app = express();
-  app.set('trust proxy', 'loopback');
+  usePasswordCost(config.BCRYPT_ROUNDS);
+  // why: X-Forwarded-For decides the sign-in limit's key; believe it only from a configured proxy
+  app.set('trust proxy', trustProxy(config.TRUST_PROXY));
   app.disable('x-powered-by');
 
   app.use((_req, res, next) => {
@@ -104,17 +118,27 @@ export function createApp(deps: AppDeps): express.Express {
   const queue = deps.runQueue ?? new RunQueue();
   const mail = new MailSender(config);
   const publisher = new AdvisoryPublisher(mail, config.PUBLIC_URL);
+  const health = new HealthRegistry();
   const services: Services = {
     queue, mail, board: new BoardService(sequelize, publisher), advisories: new AdvisoryService(sequelize, publisher),
     subscriptions: new SubscriptionService(sequelize, createStripe(config), config),
+    csrf: createCsrf({ secret: config.SESSION_SECRET, secureCookie: config.COOKIE_SECURE }), health,
   };
-  Object.assign(app.locals, { runQueue: queue, mail });
+  health.register('database', databaseCheck(sequelize));
+  health.register('queue', () => queue.health());
+  health.register('mail', () => mail.health());
+  Object.assign(app.locals, { runQueue: queue, mail, health });
+  // private data and PDFs: never kept by a browser or a shared cache
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   // before the JSON parser, the session and the CSRF check: Stripe signs the raw body and sends no cookie
   const webhook: ApiMount = { base: '/api/stripe', router: stripeWebhookRoutes(services.subscriptions) };
   app.use(webhook.base, webhook.router);
   app.use(express.json({ limit: '1mb' }));
 
-  const store = new SequelizeStore({ db: sequelize, tableName: 'sessions', checkExpirationInterval: 15 * 60_000 });
+  const store = createSessionStore(sequelize);
   app.locals.sessionStore = store;
   app.use(session({
     name: 'brinkmark.sid',
@@ -133,7 +157,7 @@ export function createApp(deps: AppDeps): express.Express {
   const passport = createPassport();
   app.use(passport.initialize());
   app.use(passport.session());
-  app.use('/api', csrfProtection);
+  app.use('/api', services.csrf.protection);
 
   const mounts = apiMounts(deps, passport, services);
   app.locals.apiMounts = [webhook, ...mounts];

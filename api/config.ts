@@ -15,7 +15,16 @@ const schema = z.object({
   SESSION_SECRET: z.string().min(32).default('brinkmark-development-session-secret-change-me'),
   SESSION_MAX_AGE_HOURS: z.coerce.number().positive().default(12),
   COOKIE_SECURE: bool.default(false),
+  /** bcrypt cost of stored passwords and of the comparison for unknown accounts (12 in production). */
+  BCRYPT_ROUNDS: z.coerce.number().int().min(10).max(15).default(12),
   SIGNIN_LIMIT_PER_15_MIN: z.coerce.number().int().positive().default(10),
+  /** Failed sign-ins allowed per account (whatever the address) in 15 minutes. */
+  SIGNIN_ACCOUNT_LIMIT_PER_15_MIN: z.coerce.number().int().positive().default(10),
+  /**
+   * Which proxies may set X-Forwarded-For: empty (the default) trusts none, so the client address is
+   * the socket's; otherwise Express's "trust proxy" value (a hop count, or addresses and subnets).
+   */
+  TRUST_PROXY: z.string().regex(/^[0-9a-fA-F.:/, ]*$|^(loopback|linklocal|uniquelocal)(, *(loopback|linklocal|uniquelocal))*$/, 'a hop count, or addresses/subnets, or loopback').default(''),
   CLIENT_DIR: z.string().default('.data/dist/browser'),
   LOG_REQUESTS: bool.default(false),
   PUBLIC_URL: z.string().url().default('http://127.0.0.1:4300'),
@@ -34,6 +43,28 @@ const schema = z.object({
 
 export type Config = z.infer<typeof schema>;
 
+/**
+ * Keys a production server must be given explicitly: their defaults are for a laptop (a shipped
+ * secret, the loopback Stripe fake, the local database password, cookies sent over plain HTTP).
+ */
+export const PRODUCTION_REQUIRED = ['SESSION_SECRET', 'STRIPE_WEBHOOK_SECRET', 'STRIPE_SECRET_KEY', 'DB_PASSWORD', 'STRIPE_API_BASE', 'COOKIE_SECURE'] as const;
+
+/** Values that ship in this repository and so are public: never acceptable in production. */
+const SHIPPED = new Set(['brinkmark-development-session-secret-change-me', 'whsec_brinkmark_local', 'sk_test_brinkmark_local', 'brinkmark-local-db']);
+
+function productionProblems(env: NodeJS.ProcessEnv, config: Config): string[] {
+  const problems: string[] = [];
+  for (const key of PRODUCTION_REQUIRED) {
+    const value = env[key];
+    if (value === undefined) problems.push(`${key}: must be set in production (the default is for local use)`);
+    else if (SHIPPED.has(value)) problems.push(`${key}: is the shipped development value`);
+  }
+  if (/^https?:\/\/(127\.|localhost|\[::1\])/.test(config.STRIPE_API_BASE) && env.STRIPE_API_BASE !== undefined) {
+    problems.push('STRIPE_API_BASE: points at a loopback fake (leave it empty for Stripe itself)');
+  }
+  return problems;
+}
+
 /** Parses an environment (process.env by default) into a typed Config or throws listing each bad key. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = schema.safeParse(env);
@@ -41,8 +72,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     const keys = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ');
     throw new Error(`Invalid configuration: ${keys}`);
   }
-  if (parsed.data.NODE_ENV === 'production' && parsed.data.SESSION_SECRET.includes('development')) {
-    throw new Error('Invalid configuration: SESSION_SECRET must be set in production');
+  if (parsed.data.NODE_ENV === 'production') {
+    const problems = productionProblems(env, parsed.data);
+    if (problems.length) throw new Error(`Invalid configuration for production: ${problems.join('; ')}`);
   }
   return parsed.data;
 }

@@ -2,11 +2,17 @@
 import { createApp } from './app';
 import { loadConfig } from './config';
 import { createSequelize, schemaMigrator } from './db';
+import { whileDatabaseAway } from './health/retry';
 import { RunQueue } from './runs/run-queue';
+
+// the last line of defence: background work handles its own failures, and anything that slips through is logged, not fatal
+process.on('unhandledRejection', (reason) => {
+  console.error('unhandled rejection (the server keeps running):', reason);
+});
 
 const config = loadConfig();
 const sequelize = createSequelize(config);
-await sequelize.authenticate();
+await whileDatabaseAway(() => sequelize.authenticate(), { label: 'connecting to the database', forMs: 10 * 60_000 });
 await schemaMigrator(sequelize).up();
 const interrupted = await RunQueue.recoverInterrupted();
 if (interrupted) console.log(`${interrupted} run(s) interrupted by the last stop were marked failed.`);
@@ -20,8 +26,11 @@ function shutdown(): void {
   app.locals.mail.stop();
   server.close(() => {
     app.locals.sessionStore.stopExpiringSessions();
-    void sequelize.close().then(() => process.exit(0));
+    void sequelize.close().catch(() => undefined).then(() => process.exit(0));
   });
+  // keep-alive connections would hold close() open
+  server.closeIdleConnections();
+  setTimeout(() => process.exit(0), 5000).unref();
 }
 process.on('SIGINT', shutdown);
 process.on('SIGTERM', shutdown);

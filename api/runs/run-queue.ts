@@ -6,6 +6,7 @@ import type { Worker } from 'node:worker_threads';
 import { tsWorker } from '../engine/numerics/ts-worker';
 import { parseStockCsv } from '../engine/data/csv';
 import { Dataset } from '../datasets/dataset.model';
+import { logFailure, whileDatabaseAway } from '../health/retry';
 import { Run } from './run.model';
 
 const PROGRESS_EVERY_MS = 250;
@@ -30,7 +31,7 @@ export class RunQueue {
   enqueue(runId: number): void {
     this.waiting.push(runId);
     if (!this.release) this.idle = new Promise((r) => { this.release = r; });
-    void this.next();
+    this.next().catch(logFailure('starting the next run'));
   }
 
   /** Cancels a queued or running run; false when it is not in this queue. */
@@ -46,8 +47,13 @@ export class RunQueue {
     this.current = null;
     await worker.terminate();
     await this.finish(runId, { status: 'cancelled', error: null });
-    void this.next();
+    this.next().catch(logFailure('starting the next run'));
     return true;
+  }
+
+  /** What /api/health shows for the run queue. */
+  health(): { status: 'up'; figures: Record<string, number | null> } {
+    return { status: 'up', figures: { waiting: this.waiting.length, running: this.current?.id ?? null } };
   }
 
   /** Resolves when nothing is queued or running (for orderly shutdown and tests). */
@@ -63,15 +69,16 @@ export class RunQueue {
       this.release = null;
       return;
     }
-    const run = await Run.findByPk(id);
-    const dataset = run ? await Dataset.findByPk(run.datasetId) : null;
+    const label = `run ${id}`;
+    const run = await whileDatabaseAway(() => Run.findByPk(id), { label });
+    const dataset = run ? await whileDatabaseAway(() => Dataset.findByPk(run.datasetId), { label }) : null;
     const parsed = dataset ? parseStockCsv(dataset.csvText) : null;
     if (!run || !parsed?.ok) {
       await this.finish(id, { status: 'failed', error: 'The run or its dataset could not be read.' });
       return this.next();
     }
     const started = Date.now();
-    await run.update({ status: 'running', startedAt: new Date(started), progress: 0, stage: 'Starting' });
+    await whileDatabaseAway(() => run.update({ status: 'running', startedAt: new Date(started), progress: 0, stage: 'Starting' }), { label });
     const worker = tsWorker(this.workerUrl, { series: parsed.series, model: run.model, options: run.options });
     this.current = { id, worker };
     let lastWrite = 0;
@@ -80,23 +87,25 @@ export class RunQueue {
       if (settled || this.current?.id !== id) return;
       settled = true;
       this.current = null;
-      await this.finish(id, { ...outcome, durationMs: Date.now() - started });
       await worker.terminate();
-      void this.next();
+      await this.finish(id, { ...outcome, durationMs: Date.now() - started });
+      await this.next();
     };
+    const settleLogged = (outcome: Parameters<RunQueue['finish']>[1]) => { settle(outcome).catch(logFailure(`recording the outcome of run ${id}`)); };
     worker.on('message', (msg: { type: 'progress'; fraction: number; stage: string } | { type: 'done'; results: unknown } | { type: 'failed'; message: string }) => {
       if (msg.type === 'progress') {
         if (Date.now() - lastWrite < PROGRESS_EVERY_MS) return;
         lastWrite = Date.now();
-        void Run.update({ progress: msg.fraction, stage: msg.stage }, { where: { id, status: 'running' } });
+        // progress is best effort: a write lost to a database outage is simply skipped
+        Run.update({ progress: msg.fraction, stage: msg.stage }, { where: { id, status: 'running' } }).catch(() => undefined);
       } else if (msg.type === 'done') {
-        void settle({ status: 'succeeded', results: JSON.stringify(msg.results), error: null });
+        settleLogged({ status: 'succeeded', results: JSON.stringify(msg.results), error: null });
       } else {
-        void settle({ status: 'failed', error: `The fit failed: ${msg.message}` });
+        settleLogged({ status: 'failed', error: `The fit failed: ${msg.message}` });
       }
     });
-    worker.on('error', (err) => void settle({ status: 'failed', error: `The fit failed: ${err.message}` }));
-    worker.on('exit', (code) => void settle({ status: 'failed', error: `The run's worker stopped unexpectedly (exit code ${code}).` }));
+    worker.on('error', (err) => settleLogged({ status: 'failed', error: `The fit failed: ${err.message}` }));
+    worker.on('exit', (code) => settleLogged({ status: 'failed', error: `The run's worker stopped unexpectedly (exit code ${code}).` }));
   }
 
   private async finish(id: number, outcome: { status: 'succeeded' | 'failed' | 'cancelled'; results?: string; error: string | null; durationMs?: number }): Promise<void> {
@@ -105,6 +114,7 @@ export class RunQueue {
       durationMs: outcome.durationMs ?? null, stage: null, finishedAt: new Date(),
     };
     if (outcome.status === 'succeeded') values.progress = 1;
-    await Run.update(values, { where: { id } });
+    // the outcome is kept in memory and written as soon as the database answers again
+    await whileDatabaseAway(() => Run.update(values, { where: { id } }), { label: `run ${id} outcome` });
   }
 }

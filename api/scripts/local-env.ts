@@ -45,6 +45,8 @@ export function profile(name: Profile) {
     STRIPE_API_BASE: `http://127.0.0.1:${p.stripe}`,
     STRIPE_WEBHOOK_SECRET: 'whsec_brinkmark_local',
     TEST_PORT_BASE: String(TEST_PORT_BASE),
+    // the demo accounts' cost: sign-ins in specs stay fast, and no hash is upgraded behind the specs' back
+    ...(name === 'test' ? { BCRYPT_ROUNDS: '10' } : {}),
   };
   const fakes = { smtp: p.smtp, stripe: p.stripe, mailDir: p.mailDir, webhookUrl: `${env.PUBLIC_URL}/api/stripe/webhook`, stripeWebhookSecret: env.STRIPE_WEBHOOK_SECRET! };
   return { server: mariaDbServer(p.datadir, p.dbPort), env, fakes, db: { name: p.db, user: 'brinkmark', password: env.DB_PASSWORD! } };

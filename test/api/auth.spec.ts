@@ -60,21 +60,25 @@ describe('sign-in', () => {
   });
 
   it('rotates the session id at sign-in, so the pre-sign-in id is worthless', async () => {
-    const before = await request(app).get('/api/auth/csrf').expect(200);
-    const oldCookie = sessionCookie(before).split(';')[0];
-    const res = await request(app).post('/api/auth/sign-in').set('Cookie', oldCookie).set('x-csrf-token', before.body.csrfToken)
-      .send({ email: demoEmail('licensee'), password: DEMO_PASSWORD }).expect(200);
-    const newCookie = sessionCookie(res).split(';')[0];
+    const { agent, csrf } = await anonymous(app);
+    const first = await agent.post('/api/auth/sign-in').set('x-csrf-token', csrf).send({ email: demoEmail('licensee'), password: DEMO_PASSWORD }).expect(200);
+    const oldCookie = sessionCookie(first).split(';')[0]!;
+    // signing in again on the same session (as a fixated id would) gives a new id
+    const again = await agent.post('/api/auth/sign-in').set('x-csrf-token', first.body.csrfToken).send({ email: demoEmail('licensee'), password: DEMO_PASSWORD }).expect(200);
+    const newCookie = sessionCookie(again).split(';')[0]!;
     expect(newCookie).not.toBe(oldCookie);
     await request(app).get('/api/auth/me').set('Cookie', oldCookie).expect(401);
     await request(app).get('/api/auth/me').set('Cookie', newCookie).expect(200);
   });
 
-  it('sets the session cookie HttpOnly and SameSite=Strict', async () => {
-    const res = await request(app).get('/api/auth/csrf').expect(200);
-    const cookie = sessionCookie(res);
-    expect(cookie).toMatch(/HttpOnly/i);
-    expect(cookie).toMatch(/SameSite=Strict/i);
+  it('sets the session cookie and the anonymous CSRF cookie HttpOnly and SameSite=Strict', async () => {
+    const { agent, csrf } = await anonymous(app);
+    const res = await agent.post('/api/auth/sign-in').set('x-csrf-token', csrf).send({ email: demoEmail('board'), password: DEMO_PASSWORD }).expect(200);
+    const anon = await request(app).get('/api/auth/csrf').expect(200);
+    for (const cookie of [sessionCookie(res), ([] as string[]).concat(anon.headers['set-cookie'] ?? []).find((c) => c.startsWith('brinkmark.csrf='))!]) {
+      expect(cookie).toMatch(/HttpOnly/i);
+      expect(cookie).toMatch(/SameSite=Strict/i);
+    }
   });
 
   it('signs out: the session no longer answers', async () => {

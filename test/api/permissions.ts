@@ -22,6 +22,8 @@ export const PERMISSIONS: readonly Permission[] = [
   // signing in and out
   { method: 'GET', path: '/api/auth/csrf', roles: 'public' },
   { method: 'POST', path: '/api/auth/sign-in', roles: 'public' },
+  // the state of the database, queue and mail, for a proxy or a monitor that holds no account
+  { method: 'GET', path: '/api/health', roles: 'public' },
   { method: 'POST', path: '/api/auth/sign-out', roles: ANY },
   { method: 'GET', path: '/api/auth/me', roles: ANY },
 
@@ -83,5 +85,6 @@ export const PERMISSIONS: readonly Permission[] = [
   // the administrator's views of the mail folder and the audit trail
   { method: 'GET', path: '/api/admin/mail', roles: ['admin'] },
   { method: 'GET', path: '/api/admin/mail/:file', roles: ['admin'] },
+  { method: 'POST', path: '/api/admin/mail/outbox/:id/resend', roles: ['admin'] },
   { method: 'GET', path: '/api/audit-events', roles: ['admin'] },
 ];

@@ -7,8 +7,8 @@ const PORT = Number(process.env.TEST_PORT_BASE ?? 4390) + 1;
 const BASE = `http://127.0.0.1:${PORT}`;
 const startServer = () => spawnServer(PORT, { CLIENT_DIR: '.data/no-client' });
 
-function cookieOf(res: Response): string {
-  return res.headers.getSetCookie().find((c) => c.startsWith('brinkmark.sid='))!.split(';')[0]!;
+function cookieOf(res: Response, name = 'brinkmark.sid'): string {
+  return res.headers.getSetCookie().find((c) => c.startsWith(`${name}=`))!.split(';')[0]!;
 }
 
 describe('session store in MariaDB', () => {
@@ -24,7 +24,7 @@ describe('session store in MariaDB', () => {
       const { csrfToken } = await token.json() as { csrfToken: string };
       const login = await fetch(`${BASE}/api/auth/sign-in`, {
         method: 'POST',
-        headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie: cookieOf(token) },
+        headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie: cookieOf(token, 'brinkmark.csrf') },
         body: JSON.stringify({ email: demoEmail('board'), password: DEMO_PASSWORD }),
       });
       expect(login.status).toBe(200);
