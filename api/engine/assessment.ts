@@ -3,6 +3,7 @@ import { bootstrapInWorkers } from './uncertainty/bootstrap-pool';
 import { quantile, runBootstrap, type Replicate } from './uncertainty/bootstrap';
 import { fitSurplusRaw, type SurplusFitOptions } from './surplus/fit-surplus';
 import { summariseFit, type SurplusFitSummary } from './fit/fit-summary';
+import { constraintNote } from './fit/constraints';
 import { surplusFold, type FoldAnalysis } from './surplus/fold';
 import { project, type ProjectionResult } from './projection/projection';
 import { proposeQuota, type QuotaProposal, type RampRule } from './projection/quota';
@@ -17,7 +18,7 @@ export interface Assessment {
 
 /** Fits a surplus-production model and continues its equilibria in harvest to the fold. */
 export function assessSurplus(series: StockSeries, opts: SurplusFitOptions): Assessment {
-  const fit = summariseFit(series, fitSurplusRaw(series, opts));
+  const fit = summariseFit(series, fitSurplusRaw(series, opts), { constraints: constraintNote(opts.fixed, opts.priors) });
   const fold = surplusFold(fit.model as SurplusFitOptions['model'], fit.params);
   return { fit: { ...fit, hStar: fold.hStar }, fold };
 }

@@ -2,6 +2,7 @@
 import { assessSurplus, bootstrapFit, quotaStudy } from '../engine/assessment';
 import { quantile } from '../engine/uncertainty/bootstrap';
 import { earlyWarning } from '../engine/diagnostics/early-warning';
+import { diagnoseSurplus } from '../engine/diagnostics/diagnose';
 import { fitPredatorPrey } from '../engine/linked/fit-predator-prey';
 import { harvestBifurcations, interiorEquilibrium } from '../engine/linked/predator-prey';
 import { filledCatches, type StockSeries } from '../engine/data/series';
@@ -11,16 +12,22 @@ import type { PredatorPreyRunResults, RunOptions, RunResults, SurplusRunResults 
 export type Progress = (fraction: number, stage: string) => void;
 
 async function surplusRun(series: StockSeries, model: SurplusModelName, o: RunOptions, progress: Progress): Promise<SurplusRunResults> {
-  progress(0.02, 'Fitting the model');
-  const opts = { model, shape: model === 'pella-tomlinson' ? o.shape : undefined };
+  progress(0.02, o.priors ? 'Fitting the model (penalised likelihood)' : 'Fitting the model');
+  const opts = { model, shape: model === 'pella-tomlinson' ? o.shape : undefined, fixed: o.fixed, priors: o.priors };
   const { fit, fold } = assessSurplus(series, opts);
   progress(0.1, 'Fit done; continuing the equilibria to the fold');
   const resid = fit.indices[0]!.residuals.map((r, i) => [series.years[i]!, r] as const).filter((p): p is readonly [number, number] => p[1] !== null);
   const ew = resid.length >= 12 ? earlyWarning(resid.map((p) => p[0]), resid.map((p) => p[1])) : null;
-  if (o.bootstrap === 0) return { kind: 'surplus', fit, fold, bootstrap: null, quota: null, earlyWarning: ew };
+  const share = o.bootstrap === 0 ? 0.88 : 0.3;
+  const diagnostics = o.diagnostics === false ? null : diagnoseSurplus(series, opts, fit, {
+    peel: o.peel ?? 5, jitter: o.jitter ?? 20, seed: o.seed,
+    onProgress: (f, stage) => progress(0.1 + share * f, `Diagnostics: ${stage}`),
+  });
+  if (o.bootstrap === 0) return { kind: 'surplus', fit, fold, bootstrap: null, quota: null, earlyWarning: ew, diagnostics };
+  const start = 0.1 + share;
   const reps = await bootstrapFit(series, opts, fit, {
     replicates: o.bootstrap, seed: o.seed, workers: 2,
-    onProgress: (done, total) => progress(0.1 + (0.8 * done) / total, `Bootstrap ${done} of ${total}`),
+    onProgress: (done, total) => progress(start + ((0.9 - start) * done) / total, `Bootstrap ${done} of ${total}`),
   });
   progress(0.92, 'Projecting candidate quotas');
   const h = reps.map((r) => r.hStar);
@@ -30,7 +37,7 @@ async function surplusRun(series: StockSeries, model: SurplusModelName, o: RunOp
     years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed,
   });
   return {
-    kind: 'surplus', fit, fold, earlyWarning: ew, quota,
+    kind: 'surplus', fit, fold, earlyWarning: ew, quota, diagnostics,
     bootstrap: { replicates: reps.length, hStar: { p5: quantile(h, 0.05), p50: quantile(h, 0.5), p95: quantile(h, 0.95) }, intervals: quota.intervals, draws: reps },
   };
 }

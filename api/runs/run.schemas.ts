@@ -7,9 +7,27 @@ import type { SurplusFitSummary } from '../engine/fit/fit-summary';
 import type { FoldAnalysis } from '../engine/surplus/fold';
 import type { QuotaStudy } from '../engine/assessment';
 import type { Replicate } from '../engine/uncertainty/bootstrap';
+import type { SurplusDiagnostics } from '../engine/diagnostics/diagnose';
 
 export const SURPLUS_MODELS = ['schaefer', 'pella-tomlinson', 'fox'] as const;
 export const PREDATOR_PREY_MODELS = ['rosenzweig-macarthur', 'lotka-volterra'] as const;
+
+const prior = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('lognormal'), median: z.number().positive().max(1e9), sdLog: z.number().gt(0).max(5) }).strict(),
+  z.object({ kind: z.literal('beta'), mean: z.number().gt(0).lt(1), sd: z.number().gt(0).lt(0.5) }).strict()
+    .refine((p) => p.sd ** 2 < p.mean * (1 - p.mean), { path: ['sd'], message: 'a beta prior needs sd² below mean·(1 − mean)' }),
+]);
+
+/** Data-poor options: values held instead of estimated, and priors (then the fit is a penalised likelihood). */
+export const fixedSchema = z.object({
+  r: z.number().gt(0).max(3).optional(),
+  K: z.number().positive().max(1e12).optional(),
+  d0: z.number().min(0.05).max(1.5).optional(),
+  /** Catchability per survey name. */
+  q: z.record(z.string().min(1).max(80), z.number().positive().max(1e9)).optional(),
+}).strict();
+
+export const priorsSchema = z.object({ r: prior.optional(), d0: prior.optional() }).strict();
 
 export const startRunSchema = z.object({
   datasetId: z.number().int().positive(),
@@ -26,10 +44,16 @@ export const startRunSchema = z.object({
   processSd: z.number().min(0).max(1).default(0.1),
   limitFraction: z.number().min(0.05).max(1).default(0.5),
   conversion: z.number().gt(0).max(1).default(0.25),
+  diagnostics: z.boolean().default(true),
+  peel: z.number().int().min(1).max(10).default(5),
+  jitter: z.number().int().min(0).max(100).default(20),
+  fixed: fixedSchema.optional(),
+  priors: priorsSchema.optional(),
 }).strict().refine((v) => v.trigger > v.limit, { path: ['trigger'], message: 'the trigger must be above the limit' });
 
 export type StartRunBody = z.infer<typeof startRunSchema>;
-export type RunOptions = Omit<StartRunBody, 'datasetId' | 'model'>;
+/** Options as stored: runs from before the diagnostics and data-poor options lack those fields. */
+export type RunOptions = Omit<StartRunBody, 'datasetId' | 'model' | 'diagnostics' | 'peel' | 'jitter'> & Partial<Pick<StartRunBody, 'diagnostics' | 'peel' | 'jitter'>>;
 export type RunStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
 
 export interface SurplusRunResults {
@@ -45,6 +69,8 @@ export interface SurplusRunResults {
   } | null;
   quota: QuotaStudy | null;
   earlyWarning: EarlyWarning | null;
+  /** Retrospective, hindcast, profiles, residual checks and jitter (absent on runs made before they existed). */
+  diagnostics?: SurplusDiagnostics | null;
 }
 
 export interface PredatorPreyRunResults {

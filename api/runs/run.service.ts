@@ -21,6 +21,13 @@ export class RunService {
         ? 'A predator-prey model needs a linked dataset with prey and predator columns.'
         : 'This dataset is a linked predator-prey series: choose Rosenzweig-MacArthur or Lotka-Volterra.');
     }
+    if (linkedModel && (body.fixed || body.priors)) {
+      throw new HttpError(422, 'OPTION_NOT_FOR_MODEL', 'Fixed values and priors apply to the surplus-production models only.', { fixed: ['not for predator-prey models'] });
+    }
+    const unknownQ = Object.keys(body.fixed?.q ?? {}).filter((n) => !dataset.indexNames.includes(n));
+    if (unknownQ.length) {
+      throw new HttpError(422, 'UNKNOWN_SURVEY', `The dataset has no survey named ${unknownQ.join(', ')} (it has ${dataset.indexNames.join(', ')}).`, { 'fixed.q': [`unknown survey ${unknownQ.join(', ')}`] });
+    }
     const { datasetId, model, ...options } = body;
     const run = await this.sequelize.transaction(async (t) => {
       const r = await Run.create({

@@ -72,6 +72,40 @@ describe('model runs', () => {
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['bootstrap', 'model', 'risk']);
   });
 
+  it('stores data-poor options with the run, fits a penalised likelihood and keeps the diagnostics with the results', async () => {
+    const who = await signIn(app, 'assessor');
+    const start = await who.agent.post('/api/runs').set('x-csrf-token', who.csrf).send({
+      datasetId: crabData, model: 'schaefer', bootstrap: 0, peel: 2, jitter: 2,
+      fixed: { d0: 0.9 }, priors: { r: { kind: 'lognormal', median: 0.4, sdLog: 0.3 } },
+    }).expect(202);
+    const done = await waitForRun(who, start.body.run.id, finished);
+    expect(done.run.status).toBe('succeeded');
+    expect(done.run.options).toEqual(jasmine.objectContaining({ fixed: { d0: 0.9 }, priors: { r: { kind: 'lognormal', median: 0.4, sdLog: 0.3 } }, peel: 2 }));
+    const r = done.results as { fit: { params: { d0: number }; penalised: boolean; constraints: string }; diagnostics: { retrospective: { peels: unknown[] }; profiles: { name: string }[]; jitter: { starts: number } } };
+    expect(r.fit.params.d0).toBe(0.9);
+    expect(r.fit.penalised).toBeTrue();
+    expect(r.fit.constraints).toContain('B0/K fixed at 0.9');
+    expect(r.diagnostics.retrospective.peels.length).toBe(3);
+    // K and r free, B0/K held: profiles of r, K, MSY and h*
+    expect(r.diagnostics.profiles.map((p) => p.name)).toEqual(['r', 'K', 'MSY', 'h*']);
+    expect(r.diagnostics.jitter.starts).toBe(2);
+  });
+
+  it('refuses a catchability for a survey the dataset does not have, and an impossible beta prior, storing nothing', async () => {
+    const who = await signIn(app, 'assessor');
+    const { Run } = await import('../../api/runs/run.model');
+    const before = await Run.count();
+    const q = await who.agent.post('/api/runs').set('x-csrf-token', who.csrf).send({ datasetId: crabData, model: 'schaefer', fixed: { q: { acoustic: 0.1 } } }).expect(422);
+    expect(q.body.error.code).toBe('UNKNOWN_SURVEY');
+    expect(q.body.error.message).toContain('trap_survey');
+    const beta = await who.agent.post('/api/runs').set('x-csrf-token', who.csrf)
+      .send({ datasetId: crabData, model: 'schaefer', priors: { d0: { kind: 'beta', mean: 0.9, sd: 0.4 } } }).expect(400);
+    expect(Object.keys(beta.body.error.fields)).toContain('priors.d0.sd');
+    const linked = await who.agent.post('/api/runs').set('x-csrf-token', who.csrf).send({ datasetId: codData, model: 'lotka-volterra', fixed: { r: 0.5 } }).expect(422);
+    expect(linked.body.error.code).toBe('OPTION_NOT_FOR_MODEL');
+    expect(await Run.count()).toBe(before);
+  });
+
   it('reports a failed fit as failed, with the engine\'s reason', async () => {
     const { sequelize } = await testDb();
     const failing = createApp({ config: testConfig(), sequelize, runQueue: new RunQueue(new URL('../fixtures/failing-run-worker.ts', import.meta.url)) });

@@ -4,6 +4,7 @@
  *   npm run --silent cli -- fold  --model schaefer --input FILE.csv
  *   npm run --silent cli -- quota --model schaefer --input FILE.csv [--risk 0.05] [--replicates 1000]
  *        [--limit 0.4] [--trigger 0.8] [--ftarget 1] [--candidates 1000,1500] [--years 10] [--process-sd 0.1]
+ *   npm run --silent cli -- diagnose --model schaefer --input FILE.csv [--peel 5] [--jitter 20] [--seed S]
  *   npm run --silent cli -- cascade --model ricker --params r=2.8,K=1000 [--harvest FROM:TO:STEP]   (cascade-command.ts)
  *   npm run --silent cli -- reserve --params r=0.5,K=100,D=2 --coast 60 --reserve 20:40 [--fishing F]   (reserve-command.ts)
  * Prints JSON on standard output; on bad input prints the problems on standard error and exits 2.
@@ -12,6 +13,7 @@ import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { assessSurplus, bootstrapFit, ENGINE_VERSION, quotaStudy } from '../assessment';
 import { parseStockCsv } from '../data/csv';
+import { diagnoseSurplus } from '../diagnostics/diagnose';
 import type { SurplusModelName } from '../surplus/surplus';
 import { UsageError } from './command-args';
 import { cascadeCommand } from './cascade-command';
@@ -30,14 +32,14 @@ async function main(argv: string[]): Promise<unknown> {
   const [command, ...rest] = argv;
   if (command === 'cascade') return { engine: ENGINE_VERSION, ...cascadeCommand(rest) as object };
   if (command === 'reserve') return { engine: ENGINE_VERSION, ...reserveCommand(rest) as object };
-  if (!command || !['fit', 'fold', 'quota'].includes(command)) throw new UsageError('usage: cli fit|fold|quota --model MODEL --input FILE.csv [options] | cli cascade ... | cli reserve ...');
+  if (!command || !['fit', 'fold', 'quota', 'diagnose'].includes(command)) throw new UsageError('usage: cli fit|fold|quota|diagnose --model MODEL --input FILE.csv [options] | cli cascade ... | cli reserve ...');
   const { values: o } = parseArgs({
     args: rest, strict: true,
     options: {
       model: { type: 'string' }, input: { type: 'string' }, shape: { type: 'string' }, bootstrap: { type: 'string' },
       seed: { type: 'string' }, risk: { type: 'string' }, replicates: { type: 'string' }, limit: { type: 'string' },
       trigger: { type: 'string' }, ftarget: { type: 'string' }, candidates: { type: 'string' }, years: { type: 'string' },
-      'process-sd': { type: 'string' }, workers: { type: 'string' },
+      'process-sd': { type: 'string' }, workers: { type: 'string' }, peel: { type: 'string' }, jitter: { type: 'string' },
     },
   });
   const model = o.model as SurplusModelName;
@@ -51,6 +53,22 @@ async function main(argv: string[]): Promise<unknown> {
   const opts = { model, shape: o.shape === undefined ? undefined : num(o.shape, 'shape', 1) };
   const seed = num(o.seed, 'seed', 1);
   const { fit, fold } = assessSurplus(parsed.series, opts);
+  if (command === 'diagnose') {
+    const peel = num(o.peel, 'peel', 5);
+    if (!Number.isInteger(peel) || peel < 1 || peel > 10) throw new UsageError('--peel must be a whole number from 1 to 10');
+    const d = diagnoseSurplus(parsed.series, opts, fit, { peel, jitter: num(o.jitter, 'jitter', 20), seed });
+    const byIndex = <T>(f: (i: number) => T) => Object.fromEntries(d.residuals.map((r, i) => [r.index, f(i)]));
+    return {
+      engine: ENGINE_VERSION, model, peels: d.retrospective ? d.retrospective.peels.length - 1 : 0,
+      mohnsRho: d.retrospective?.mohnsRho ?? null,
+      mase: Object.fromEntries(d.hindcast.map((h) => [h.index, h.mase])),
+      runsTest: byIndex((i) => ({ p: d.residuals[i]!.runsTest?.p ?? null, runs: d.residuals[i]!.runsTest?.runs ?? null, expected: d.residuals[i]!.runsTest?.expected ?? null })),
+      lag1: byIndex((i) => d.residuals[i]!.lag1),
+      outside3Sigma: byIndex((i) => d.residuals[i]!.outside3Sigma),
+      profiles: Object.fromEntries(d.profiles.map((p) => [p.name, p.interval])),
+      jitter: d.jitter && { starts: d.jitter.starts, reachingBest: d.jitter.reachingBest, bestNll: d.jitter.bestNll, fitNll: d.jitter.fitNll },
+    };
+  }
   if (command === 'fold') return { engine: ENGINE_VERSION, model, hStar: fold.hStar, bFold: fold.bFold, table: fold.table };
   const workers = o.workers === undefined ? undefined : num(o.workers, 'workers', 2);
   if (command === 'fit') {

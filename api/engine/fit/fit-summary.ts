@@ -38,6 +38,13 @@ export interface Convergence {
 
 export interface SurplusFitSummary {
   model: string;
+  /** Parameters held at a value rather than estimated (by name: r, K, B0/K, q of a survey). */
+  fixed?: string[];
+  /** True when priors were given: logLik is then the data part and `logPrior` the penalty's log density. */
+  penalised?: boolean;
+  logPrior?: number;
+  /** What was fixed or given a prior, in words (empty for a plain fit). */
+  constraints?: string;
   years: number[];
   params: { r: number; K: number; d0: number; p: number };
   free: number[];
@@ -71,7 +78,7 @@ function derived(fit: RawFit) {
     ['K', (u) => problem.decode(u).K],
     ['B0/K', (u) => problem.decode(u).d0],
   ];
-  if (problem.bounds.length === 4) q.push(['p', (u) => problem.decode(u).p!]);
+  if (problem.bounds.some((b) => b.name === 'p')) q.push(['p', (u) => problem.decode(u).p!]);
   q.push(
     ['MSY', (u) => ref(u).msy],
     ['B_MSY', (u) => ref(u).bMsy],
@@ -84,8 +91,9 @@ function derived(fit: RawFit) {
 }
 
 /** Estimates, intervals, information criteria, residuals and convergence diagnostics. */
-export function summariseFit(series: StockSeries, fit: RawFit, { intervals = true } = {}): SurplusFitSummary {
+export function summariseFit(series: StockSeries, fit: RawFit, { intervals: wantIntervals = true, constraints = '' } = {}): SurplusFitSummary {
   const { problem, u } = fit;
+  const intervals = wantIntervals && u.length > 0;
   const params = problem.decode(u);
   const ref = referencePoints(problem.model, params);
   const { biomass } = problem.path(u);
@@ -96,9 +104,10 @@ export function summariseFit(series: StockSeries, fit: RawFit, { intervals = tru
   const cov = H ? covarianceFromHessian(H) : null;
   if (cov && !cov.cov) warnings.push('The Hessian is not positive definite: the fit is not identifiable from these data; intervals are withheld.');
   else if (cov && cov.conditionNumber > 1e8) warnings.push(`The Hessian is ill-conditioned (condition number ${cov.conditionNumber.toExponential(1)}): parameters are weakly identified.`);
-  if (cov?.cov) {
+  const iR = problem.bounds.findIndex((b) => b.name === 'r'), iK = problem.bounds.findIndex((b) => b.name === 'K');
+  if (cov?.cov && iR >= 0 && iK >= 0) {
     const c = cov.cov;
-    const rho = c[0]![1]! / Math.sqrt(c[0]![0]! * c[1]![1]!);
+    const rho = c[iR]![iK]! / Math.sqrt(c[iR]![iR]! * c[iK]![iK]!);
     if (Math.abs(rho) > 0.95) warnings.push(`r and K are strongly correlated (ρ = ${rho.toFixed(2)} on the fitted scale): their product (MSY) is better determined than either.`);
   }
   problem.bounds.forEach((b, i) => {
@@ -126,17 +135,23 @@ export function summariseFit(series: StockSeries, fit: RawFit, { intervals = tru
     warnings.push('The Pella-Tomlinson shape p is poorly determined by these data (95% interval spans more than a factor of 10): consider fixing p.');
   }
 
+  const fixedNames = [...(['r', 'K', 'd0'] as const).filter((n) => !problem.bounds.some((b) => b.name === n)).map((n) => (n === 'd0' ? 'B0/K' : n)),
+    ...Object.keys(problem.fixedQ).map((ix) => `q (${ix})`)];
+  for (const e of estimates) if (fixedNames.includes(e.name)) { e.se = null; e.ci95 = null; }
+  const logPrior = -problem.penalty(u);
   const indices = series.indices.map((ix) => {
-    const f = concentratedIndexFit(ix.values, biomass, ix.cv)!;
+    const f = concentratedIndexFit(ix.values, biomass, ix.cv, problem.fixedQ[ix.name])!;
     return { name: ix.name, q: f.q, sigma: f.sigma, residuals: f.residuals, fitted: series.years.map((_, t) => f.q * biomass[t]!) };
   });
-  const nParams = problem.bounds.length + 2 * series.indices.length;
+  const nParams = problem.bounds.length + 2 * series.indices.length - Object.keys(problem.fixedQ).length;
+  const dataNll = fit.nll + logPrior;
   const n = problem.nObs;
-  const aic = 2 * nParams + 2 * fit.nll;
+  const aic = 2 * nParams + 2 * dataNll;
   const last = problem.catches.length - 1;
   return {
-    model: problem.model, years: series.years, params: { ...params, p: params.p ?? 1 }, free: u, estimates,
-    logLik: -fit.nll, aic, aicc: n - nParams - 1 > 0 ? aic + (2 * nParams * (nParams + 1)) / (n - nParams - 1) : Infinity,
+    model: problem.model, fixed: fixedNames, penalised: logPrior !== 0, logPrior, constraints,
+    years: series.years, params: { ...params, p: params.p ?? 1 }, free: u, estimates,
+    logLik: -dataNll, aic, aicc: n - nParams - 1 > 0 ? aic + (2 * nParams * (nParams + 1)) / (n - nParams - 1) : Infinity,
     nParams, nObs: n, indices, biomass, catches: problem.catches, filledCatchYears: problem.filledYears,
     reference: ref, hStar: ref.msy,
     status: {

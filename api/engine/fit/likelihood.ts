@@ -17,9 +17,10 @@ export interface IndexFit {
 /**
  * Concentrated fit of one index to a biomass path. Without CVs: q̂ = exp(mean z), σ̂² = mean((z − ln q̂)²),
  * nll = n·ln σ̂ + (n/2)(1 + ln 2π) + Σ ln I_t. With a CV for every observation, σ_t = √ln(1 + CV²) is
- * fixed and ln q̂ is the precision-weighted mean of z.
+ * fixed and ln q̂ is the precision-weighted mean of z. A given `fixedQ` replaces q̂ (σ̂ is then the
+ * root mean square of z − ln q).
  */
-export function concentratedIndexFit(index: (number | null)[], biomass: number[], cv: (number | null)[] | null = null): IndexFit | null {
+export function concentratedIndexFit(index: (number | null)[], biomass: number[], cv: (number | null)[] | null = null, fixedQ?: number): IndexFit | null {
   const z: number[] = [];
   const at: number[] = [];
   let sumLogI = 0;
@@ -45,12 +46,12 @@ export function concentratedIndexFit(index: (number | null)[], biomass: number[]
       sw += w;
       swz += w * z[i]!;
     }
-    lnq = swz / sw;
+    lnq = fixedQ !== undefined ? Math.log(fixedQ) : swz / sw;
     nll = sumLogI;
     for (let i = 0; i < n; i++) nll += Math.log(sigmas[i]!) + 0.5 * Math.log(2 * Math.PI) + (z[i]! - lnq) ** 2 / (2 * sigmas[i]! ** 2);
     sigma = Math.sqrt(z.reduce((s, v) => s + (v - lnq) ** 2, 0) / n);
   } else {
-    lnq = z.reduce((s, v) => s + v, 0) / n;
+    lnq = fixedQ !== undefined ? Math.log(fixedQ) : z.reduce((s, v) => s + v, 0) / n;
     const s2 = z.reduce((s, v) => s + (v - lnq) ** 2, 0) / n;
     sigma = Math.sqrt(Math.max(s2, 1e-300));
     nll = n * Math.log(sigma) + (n / 2) * (1 + Math.log(2 * Math.PI)) + sumLogI;

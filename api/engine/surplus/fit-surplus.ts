@@ -3,6 +3,7 @@
  * and survey indices: lognormal errors, q and σ concentrated out, several Nelder-Mead starts.
  */
 import { concentratedIndexFit } from '../fit/likelihood';
+import { priorPenalty, type FixedParams, type ParamPriors } from '../fit/constraints';
 import { minimise } from '../numerics/nelder-mead';
 import { biomassPath, referencePoints, type SurplusModelName, type SurplusParams } from './surplus';
 import { filledCatches, type StockSeries } from '../data/series';
@@ -18,6 +19,10 @@ export interface SurplusFitOptions {
   initial?: number[];
   /** odex tolerance for the models integrated numerically. */
   tol?: number;
+  /** Parameters held at a given value instead of estimated (data-poor stocks, profiles). */
+  fixed?: FixedParams;
+  /** Priors on r and B0/K: the objective becomes a penalised likelihood. */
+  priors?: ParamPriors;
 }
 
 export interface SurplusProblem {
@@ -28,7 +33,12 @@ export interface SurplusProblem {
   nObs: number;
   decode(u: number[]): SurplusParams & { d0: number };
   path(u: number[]): { biomass: number[]; collapseYear: number | null };
+  /** The objective: negative log-likelihood plus the prior penalty, if any. */
   nll(u: number[]): number;
+  /** −ln prior density at u (0 without priors). */
+  penalty(u: number[]): number;
+  /** Fixed catchability per survey name. */
+  fixedQ: Record<string, number>;
 }
 
 const COLLAPSE_PENALTY = 1e10;
@@ -37,48 +47,59 @@ const COLLAPSE_PENALTY = 1e10;
 export function surplusProblem(series: StockSeries, opts: SurplusFitOptions): SurplusProblem {
   const { catches, filledYears } = filledCatches(series);
   const scale = Math.max(...catches, 1e-9);
+  const fixed = opts.fixed ?? {};
   const estimateShape = opts.model === 'pella-tomlinson' && opts.shape === undefined;
-  const bounds: Bound[] = [
+  const all: Bound[] = [
     { name: 'r', lo: 0.005, hi: 3, log: true },
     { name: 'K', lo: 0.5 * scale, hi: 1e4 * scale, log: true },
     { name: 'd0', lo: 0.05, hi: 1.5, log: false },
   ];
-  if (estimateShape) bounds.push({ name: 'p', lo: 0.05, hi: 5, log: true });
+  if (estimateShape) all.push({ name: 'p', lo: 0.05, hi: 5, log: true });
+  // why: with MSY held (profiles), r follows from K and p, so r is not a free parameter
+  const bounds = all.filter((b) => !(b.name === 'r' && (fixed.r !== undefined || fixed.msy !== undefined)) && !(b.name === 'K' && fixed.K !== undefined) && !(b.name === 'd0' && fixed.d0 !== undefined));
+  const at = (name: string) => bounds.findIndex((b) => b.name === name);
+  const free = (name: string, u: number[]) => toNatural(bounds[at(name)]!, u[at(name)]!);
   const nObs = series.indices.reduce((s, ix) => s + ix.values.filter((v) => v !== null).length, 0);
-  const decode = (u: number[]) => ({
-    r: toNatural(bounds[0]!, u[0]!),
-    K: toNatural(bounds[1]!, u[1]!),
-    d0: toNatural(bounds[2]!, u[2]!),
-    p: opts.model === 'pella-tomlinson' ? (estimateShape ? toNatural(bounds[3]!, u[3]!) : opts.shape!) : 1,
-  });
+  const fixedQ = fixed.q ?? {};
+  const decode = (u: number[]) => {
+    const K = fixed.K ?? free('K', u);
+    const d0 = fixed.d0 ?? free('d0', u);
+    const p = opts.model === 'pella-tomlinson' ? (estimateShape ? free('p', u) : opts.shape!) : 1;
+    const r = fixed.r ?? (fixed.msy !== undefined ? fixed.msy / (K * referencePoints(opts.model, { r: 1, K: 1, p }).msy) : free('r', u));
+    return { r, K, d0, p };
+  };
   const path = (u: number[]) => {
     const p = decode(u);
     return biomassPath(opts.model, p, p.d0 * p.K, catches, { tol: opts.tol ?? 1e-8 });
   };
+  const penalty = (u: number[]) => (opts.priors ? priorPenalty(opts.priors, decode(u)) : 0);
   const nll = (u: number[]) => {
     const { biomass, collapseYear } = path(u);
     if (collapseYear !== null) return COLLAPSE_PENALTY * (1 + (catches.length - collapseYear) / catches.length);
     let total = 0;
     for (const ix of series.indices) {
-      const fit = concentratedIndexFit(ix.values, biomass, ix.cv);
+      const fit = concentratedIndexFit(ix.values, biomass, ix.cv, fixedQ[ix.name]);
       if (!fit) return COLLAPSE_PENALTY * 3;
       total += fit.nll;
     }
-    return total;
+    return total + penalty(u);
   };
-  return { model: opts.model, bounds, catches, filledYears, nObs, decode, path, nll };
+  return { model: opts.model, bounds, catches, filledYears, nObs, decode, path, nll, penalty, fixedQ };
 }
 
 /** Grid of start points on the free scale, best first. */
 function gridStarts(problem: SurplusProblem, count: number): number[][] {
-  const [rB, KB, dB, pB] = problem.bounds;
   const scale = Math.max(...problem.catches, 1e-9);
   const points: { u: number[]; f: number }[] = [];
+  const seen = new Set<string>();
   for (const r of [0.08, 0.2, 0.45, 1.0]) {
     for (const k of [3, 6, 12, 25, 60]) {
       for (const d of [0.5, 0.95]) {
-        const u = [toFree(rB!, r), toFree(KB!, k * scale), toFree(dB!, d)];
-        if (pB) u.push(toFree(pB, 1));
+        const natural: Record<string, number> = { r, K: k * scale, d0: d, p: 1 };
+        const u = problem.bounds.map((b) => toFree(b, natural[b.name]!));
+        const key = u.join(',');
+        if (seen.has(key)) continue;
+        seen.add(key);
         points.push({ u, f: problem.nll(u) });
       }
     }
@@ -103,6 +124,9 @@ export interface RawFit {
 /** Runs the starts and a final polish from the best; no intervals (see summariseFit). */
 export function fitSurplusRaw(series: StockSeries, opts: SurplusFitOptions): RawFit {
   const problem = surplusProblem(series, opts);
+  if (problem.bounds.length === 0) {
+    return { problem, u: [], nll: problem.nll([]), iterations: 0, evaluations: 1, simplexSize: 0, hitIterationLimit: false, startValues: [problem.nll([])], startPoints: [[]] };
+  }
   let evaluations = 0;
   const f = (u: number[]) => { evaluations++; return problem.nll(u); };
   const starts = opts.initial ? [opts.initial] : gridStarts(problem, opts.starts ?? 3);
