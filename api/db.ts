@@ -5,7 +5,7 @@ import { SequelizeStorage, Umzug } from 'umzug';
 import type { Config } from './config';
 import { AuditEvent } from './audit/audit-event.model';
 import { Advisory } from './advisories/advisory.model';
-import { BoardRules, Comment, Decision, Vote } from './board/board.models';
+import { BoardRules, Comment, Correction, Decision, Vote } from './board/board.models';
 import { Dataset } from './datasets/dataset.model';
 import { OutboxMail } from './mail/outbox.model';
 import { Invoice, StripeEvent, Subscription } from './subscriptions/subscription.models';
@@ -15,7 +15,7 @@ import { Region } from './regions/region.model';
 import { Stock } from './stocks/stock.model';
 import { User } from './users/user.model';
 
-const models = [User, Region, Stock, AuditEvent, Dataset, Run, Proposal, BoardRules, Comment, Vote, Decision, Advisory, OutboxMail, Subscription, StripeEvent, Invoice];
+const models = [User, Region, Stock, AuditEvent, Dataset, Run, Proposal, BoardRules, Comment, Vote, Decision, Advisory, Correction, OutboxMail, Subscription, StripeEvent, Invoice];
 
 /**
  * Opens a pool to the configured MariaDB database and registers every model on it. Models are

@@ -28,6 +28,11 @@ export interface AdvisoryPdfData {
     pPassFold: number; pBelowLimit: number; projectionYears: number;
   };
   decision: { reason: string; votes: { approve: number; reject: number; abstain: number }; chairName: string; decidedAt: Date };
+  /** Set when this advisory corrects an earlier one: the correction's own record. */
+  correction?: {
+    kind: 'chair' | 'vote'; reason: string; votes: { approve: number; reject: number; abstain: number } | null; byName: string; at: Date; proposalId: number;
+    previous: { docId: string; limit: number; votes: { approve: number; reject: number; abstain: number }; decidedAt: Date };
+  } | null;
   fold: { table: FoldPoint[]; hStar: number; bFold: number; band: { p5: number; p95: number } };
   catches: number[];
   projection: { startYear: number; median: number[]; lower: number[]; upper: number[]; limitRef: number };
@@ -85,6 +90,29 @@ function projection(doc: Doc, d: AdvisoryPdfData, x: number, y: number, w: numbe
   doc.font('regular').fontSize(7).fillColor(DANGER).text(`Limit reference point ${n0(p.limitRef)} ${d.unit}`, x + 4, Y(p.limitRef) - 10);
 }
 
+const votesText = (v: { approve: number; reject: number; abstain: number }) => `${v.approve} approve, ${v.reject} reject, ${v.abstain} abstain`;
+const day = (d: Date) => d.toISOString().slice(0, 10);
+
+/** The decision behind this limit: the board's vote, or a correction with its own record. */
+function decisionRecord(doc: Doc, d: AdvisoryPdfData): void {
+  const c = d.correction;
+  if (!c) {
+    doc.font('semibold').fontSize(11).fillColor(INK).text('Board decision', 48);
+    doc.font('regular').fontSize(9.5).fillColor(INK).text(`Approved on ${day(d.decision.decidedAt)}, recorded by the chair, ${d.decision.chairName}. Votes: ${votesText(d.decision.votes)}.`);
+    doc.fillColor(MUTED).text(`Reason: ${d.decision.reason}`);
+    return;
+  }
+  if (c.kind === 'chair') {
+    doc.font('semibold').fontSize(11).fillColor(INK).text("Correction by the chair (no board vote)", 48);
+    doc.font('regular').fontSize(9.5).fillColor(INK).text(`On ${day(c.at)} the chair, ${c.byName}, corrected the limit from ${n0(c.previous.limit)} to ${n0(d.limit)} ${d.unit} per year alone, under the board's rule, set by the administrator, that lets the chair correct a published limit. The board did not vote on this correction.`);
+  } else {
+    doc.font('semibold').fontSize(11).fillColor(INK).text('Correction by a new board vote', 48);
+    doc.font('regular').fontSize(9.5).fillColor(INK).text(`On ${day(d.decision.decidedAt)} the board approved the corrected limit of ${n0(d.limit)} ${d.unit} per year (previously ${n0(c.previous.limit)}) by a new vote on proposal #${c.proposalId}, recorded by the chair, ${d.decision.chairName}. Votes on the correction: ${votesText(c.votes ?? d.decision.votes)}.`);
+  }
+  doc.fillColor(MUTED).text(`Reason for the correction: ${c.reason}`);
+  doc.text(`Superseded advisory ${c.previous.docId}: ${n0(c.previous.limit)} ${d.unit} per year, approved on ${day(c.previous.decidedAt)} by board vote (${votesText(c.previous.votes)}); those votes were on that limit, not on this one.`);
+}
+
 /** The advisory as PDF bytes. */
 export function renderAdvisoryPdf(d: AdvisoryPdfData): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'A4', margin: 48, info: { Title: `Harvest advisory ${d.docId}`, Author: 'Brinkmark', Subject: d.stockName }, pdfVersion: '1.7' });
@@ -132,10 +160,7 @@ export function renderAdvisoryPdf(d: AdvisoryPdfData): Promise<Buffer> {
     doc.save().lineWidth(0.3).strokeColor('#dbe3e5').moveTo(48, ty - 2).lineTo(547, ty - 2).stroke().restore();
   }
   doc.y = ty + 8;
-  doc.font('semibold').fontSize(11).fillColor(INK).text('Board decision', 48);
-  const v = d.decision.votes;
-  doc.font('regular').fontSize(9.5).fillColor(INK).text(`Approved on ${d.decision.decidedAt.toISOString().slice(0, 10)}, recorded by the chair, ${d.decision.chairName}. Votes: ${v.approve} approve, ${v.reject} reject, ${v.abstain} abstain.`);
-  doc.fillColor(MUTED).text(`Reason: ${d.decision.reason}`);
+  decisionRecord(doc, d);
   doc.moveDown(0.8);
   const chartTop = doc.y;
   doc.font('semibold').fontSize(10).fillColor(INK).text('The limit against the fold', 100, chartTop);

@@ -2,7 +2,7 @@
 import { createHash } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
-import type { Decision } from '../board/board.models';
+import { Correction, Decision, type RulesSnapshot, type VoteCount } from '../board/board.models';
 import type { MailSender } from '../mail/mail-sender';
 import { OutboxMail } from '../mail/outbox.model';
 import { figuresFor, quotaProjection } from '../proposals/proposal.service';
@@ -16,11 +16,26 @@ import { User } from '../users/user.model';
 import { Advisory } from './advisory.model';
 import { renderAdvisoryPdf } from './advisory-pdf';
 
+/** A correction being published: what it supersedes, how it was decided and why. */
+export interface CorrectionInput {
+  advisory: Advisory;
+  reason: string;
+  /** The chair alone under the board's rules, or a new board vote on a revised proposal. */
+  kind: 'chair' | 'vote';
+  /** The votes on the correction itself (a new vote); null for the chair's correction. */
+  votes: VoteCount | null;
+  rules: RulesSnapshot;
+  /** The proposal whose published limit is corrected. */
+  proposalId: number;
+}
+
+const n0 = (v: number) => Math.round(v).toLocaleString('en-GB');
+
 export class AdvisoryPublisher {
   constructor(private readonly mail: MailSender, private readonly publicUrl: string) {}
 
   /** Writes the advisory for an approved limit (and, for a correction, links it to the one it supersedes). */
-  async publish(p: { decision: Decision; proposal: Proposal; limit: number; override: boolean; actorId: number; supersedes?: { advisory: Advisory; reason: string } }, t: Transaction): Promise<Advisory> {
+  async publish(p: { decision: Decision; proposal: Proposal; limit: number; override: boolean; actorId: number; supersedes?: CorrectionInput }, t: Transaction): Promise<Advisory> {
     const { decision, proposal, limit, override, actorId } = p;
     const supersedes = p.supersedes ?? null;
     const run = (await Run.findByPk(proposal.runId, { transaction: t }))!;
@@ -28,6 +43,8 @@ export class AdvisoryPublisher {
     const stock = (await Stock.findByPk(proposal.stockId, { transaction: t }))!;
     const region = (await Region.findByPk(stock.regionId, { transaction: t }))!;
     const chair = (await User.findByPk(decision.decidedBy, { transaction: t }))!;
+    const actor = actorId === chair.id ? chair : (await User.findByPk(actorId, { transaction: t }))!;
+    const original = supersedes ? (await Decision.findByPk(supersedes.advisory.decisionId, { transaction: t }))! : null;
     // one projection serves both the figures and the chart of the PDF
     const proj = quotaProjection(run, results, limit);
     const f = figuresFor(run, results, limit, stock.unit, proj);
@@ -39,6 +56,10 @@ export class AdvisoryPublisher {
     const pdf = await renderAdvisoryPdf({
       docId, stockName: stock.name, regionName: region.name, unit: stock.unit, publishedAt, limit, proposalQuota: proposal.quota, override,
       supersedes: supersedes ? { docId: supersedes.advisory.docId, reason: supersedes.reason } : null,
+      correction: supersedes && original ? {
+        kind: supersedes.kind, reason: supersedes.reason, votes: supersedes.votes, byName: actor.name, at: publishedAt, proposalId: proposal.id,
+        previous: { docId: supersedes.advisory.docId, limit: supersedes.advisory.approvedLimit, votes: original.votes, decidedAt: original.createdAt },
+      } : null,
       figures: {
         marginAbs: f.marginToFold.absolute, marginFrac: f.marginToFold.fraction, marginLowerAbs: f.marginToFoldLower.absolute, marginLowerFrac: f.marginToFoldLower.fraction,
         hStar: f.foldHarvest, msy: f.msy, bOverBmsy: f.bOverBmsy, fOverFmsy: f.fOverFmsy, pPassFold: f.atQuota.pPassFold, pBelowLimit: f.atQuota.pBelowLimit, projectionYears: f.projectionYears,
@@ -49,19 +70,37 @@ export class AdvisoryPublisher {
       projection: { startYear: results.fit.years[results.fit.years.length - 1]! + 1, median: proj.median, lower: proj.lower, upper: proj.upper, limitRef: o.limitFraction * results.fit.reference.bMsy },
     });
     const sha256 = createHash('sha256').update(pdf).digest('hex');
-    const title = `${stock.name}: ${Math.round(limit).toLocaleString('en-GB')} ${stock.unit} per year`;
-    const summary = `The quota board approved a harvest limit of ${Math.round(limit).toLocaleString('en-GB')} ${stock.unit} per year for ${stock.name} (${region.name}), ${Math.round(f.marginToFold.absolute).toLocaleString('en-GB')} ${stock.unit} (${(f.marginToFold.fraction * 100).toFixed(1)}%) below the median fold harvest.${override ? ' The limit was approved by override above the lower 5% of the fold harvest.' : ''}`;
+    const title = `${stock.name}: ${n0(limit)} ${stock.unit} per year${supersedes ? ' (corrected)' : ''}`;
+    const margin = `${n0(f.marginToFold.absolute)} ${stock.unit} (${(f.marginToFold.fraction * 100).toFixed(1)}%) below the median fold harvest`;
+    const opening = !supersedes ? `The quota board approved a harvest limit of ${n0(limit)} ${stock.unit} per year for ${stock.name} (${region.name})`
+      : supersedes.kind === 'chair'
+        ? `The chair of the quota board corrected the harvest limit for ${stock.name} (${region.name}) from ${n0(supersedes.advisory.approvedLimit)} to ${n0(limit)} ${stock.unit} per year, without a board vote, as the board's rules allow`
+        : `By a new vote, the quota board corrected the harvest limit for ${stock.name} (${region.name}) from ${n0(supersedes.advisory.approvedLimit)} to ${n0(limit)} ${stock.unit} per year`;
+    const summary = `${opening}, ${margin}.${override ? ' The limit was approved by override above the lower 5% of the fold harvest.' : ''}`;
     const advisory = await Advisory.create({
       docId, stockId: stock.id, regionId: region.id, decisionId: decision.id, supersedesId: supersedes?.advisory.id ?? null, supersededById: null,
       approvedLimit: limit, override, title, summary, pdf, sha256, publishedBy: actorId,
     }, { transaction: t });
-    if (supersedes) await Advisory.update({ supersededById: advisory.id }, { where: { id: supersedes.advisory.id }, transaction: t });
+    if (supersedes) {
+      await Advisory.update({ supersededById: advisory.id }, { where: { id: supersedes.advisory.id }, transaction: t });
+      const c = await Correction.create({
+        advisoryId: advisory.id, supersedesAdvisoryId: supersedes.advisory.id, proposalId: supersedes.proposalId, decisionId: decision.id,
+        kind: supersedes.kind, correctedLimit: limit, previousLimit: supersedes.advisory.approvedLimit, reason: supersedes.reason, override,
+        votes: supersedes.votes, rules: supersedes.rules, decidedBy: actorId,
+      }, { transaction: t });
+      await recordAudit({
+        actorId, action: `proposal.correct.${supersedes.kind}`, entityType: 'proposal', entityId: supersedes.proposalId,
+        before: { limit: supersedes.advisory.approvedLimit, docId: supersedes.advisory.docId },
+        after: { correctionId: c.id, kind: supersedes.kind, limit, docId, reason: supersedes.reason, votes: supersedes.votes, chairMayCorrect: supersedes.rules.chairMayCorrect },
+      }, t);
+    }
     await recordAudit({ actorId, action: supersedes ? 'advisory.supersede' : 'advisory.publish', entityType: 'advisory', entityId: advisory.id, after: { docId, sha256, limit, supersedes: supersedes?.advisory.docId ?? null } }, t);
     const subscribers = await Subscription.findAll({ where: { regionId: region.id, ...Subscription.givingAccess() }, transaction: t });
     const users = await User.findAll({ where: { id: [...new Set(subscribers.map((s) => s.userId))], active: true }, transaction: t });
     for (const u of users) {
       await OutboxMail.create({
-        dedupeKey: `advisory:${advisory.id}:user:${u.id}`, toAddress: u.email, subject: `Harvest advisory ${docId}: ${title}`, advisoryId: advisory.id,
+        dedupeKey: `advisory:${advisory.id}:user:${u.id}`, toAddress: u.email, advisoryId: advisory.id,
+        subject: supersedes ? `Correction to harvest advisory ${supersedes.advisory.docId}: ${title}` : `Harvest advisory ${docId}: ${title}`,
         body: `${summary}\n\nThe advisory is attached and in your portal: ${this.publicUrl}/portal\n\nDocument ${docId}, SHA-256 ${sha256}.\n\nThese figures are scientific advice to a competent authority, subject to local regulation and licensed practice.`,
         lastError: null, messageId: null, nextAttemptAt: new Date(), sentAt: null,
       }, { transaction: t });

@@ -1,6 +1,6 @@
 /** Reading advisories (licensees only for regions they subscribe to) and publishing corrections. */
 import { Op, type Sequelize } from 'sequelize';
-import { Decision } from '../board/board.models';
+import { BoardRules, Decision } from '../board/board.models';
 import { ConflictError, ForbiddenError, HttpError, NotFoundError } from '../http/http-error';
 import { Proposal } from '../proposals/proposal.model';
 import { Region } from '../regions/region.model';
@@ -49,11 +49,15 @@ export class AdvisoryService {
       const old = await Advisory.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
       if (!old) throw new NotFoundError('Advisory');
       if (old.supersededById) throw new ConflictError('ALREADY_SUPERSEDED', 'This advisory has already been superseded; correct the newest one.');
+      const rules = await BoardRules.snapshot(t);
+      if (!rules.chairMayCorrect) {
+        throw new ConflictError('CORRECTION_NEEDS_VOTE', "The board's rules require a new vote for a correction: the assessor revises the proposal, and the board votes on the revised limit.");
+      }
       const decision = (await Decision.findByPk(old.decisionId, { transaction: t }))!;
       const proposal = (await Proposal.findByPk(decision.proposalId, { transaction: t }))!;
       const lower = proposal.figures.foldHarvest.lower5;
       if (body.limit > lower && !body.override) throw new HttpError(422, 'OVERRIDE_REQUIRED', `A limit above the lower 5% of the fold harvest (${Math.round(lower)}) needs an explicit override.`);
-      return this.publisher.publish({ decision, proposal, limit: body.limit, override: body.limit > lower, actorId: actor.id, supersedes: { advisory: old, reason: body.reason } }, t);
+      return this.publisher.publish({ decision, proposal, limit: body.limit, override: body.limit > lower, actorId: actor.id, supersedes: { advisory: old, reason: body.reason, kind: 'chair', votes: null, rules, proposalId: proposal.id } }, t);
     });
     this.publisher.afterCommit();
     return (await this.views([created]))[0]!;

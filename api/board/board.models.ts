@@ -1,10 +1,12 @@
 /** The quota board's records: its rules, comments, votes and decisions. */
-import { CreationOptional, DataTypes, InferAttributes, InferCreationAttributes, Model, Sequelize } from 'sequelize';
+import { CreationOptional, DataTypes, InferAttributes, InferCreationAttributes, Model, Sequelize, type Transaction } from 'sequelize';
 
 export class BoardRules extends Model<InferAttributes<BoardRules>, InferCreationAttributes<BoardRules>> {
   declare id: number;
   declare quorum: number;
   declare majority: number;
+  /** The chair may correct a published limit alone; otherwise a correction needs a new board vote. */
+  declare chairMayCorrect: CreationOptional<boolean>;
   declare updatedBy: number | null;
   declare updatedAt: CreationOptional<Date>;
 
@@ -13,9 +15,16 @@ export class BoardRules extends Model<InferAttributes<BoardRules>, InferCreation
       id: { type: DataTypes.INTEGER, primaryKey: true },
       quorum: { type: DataTypes.INTEGER, allowNull: false },
       majority: { type: DataTypes.DOUBLE, allowNull: false },
+      chairMayCorrect: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true, field: 'chair_may_correct' },
       updatedBy: { type: DataTypes.INTEGER, allowNull: true, field: 'updated_by' },
       updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
     }, { sequelize, tableName: 'board_rules', modelName: 'BoardRules', createdAt: false });
+  }
+
+  /** The rules now in force, as recorded with a correction. */
+  static async snapshot(transaction?: Transaction): Promise<RulesSnapshot> {
+    const r = (await BoardRules.findByPk(1, { transaction }))!;
+    return { quorum: r.quorum, majority: r.majority, chairMayCorrect: r.chairMayCorrect, updatedAt: r.updatedAt.toISOString() };
   }
 }
 
@@ -88,5 +97,50 @@ export class Decision extends Model<InferAttributes<Decision>, InferCreationAttr
       decidedBy: { type: DataTypes.INTEGER, allowNull: false, field: 'decided_by' },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
     }, { sequelize, tableName: 'decisions', modelName: 'Decision', updatedAt: false });
+  }
+}
+
+/** The board rules as they stood when a correction was made. */
+export interface RulesSnapshot { quorum: number; majority: number; chairMayCorrect: boolean; updatedAt: string }
+
+/**
+ * The decision record of a correction: the chair alone (where the rules allow it) or a new board vote on a
+ * revised proposal. The corrected advisory supersedes the earlier one, which stays as it was.
+ */
+export class Correction extends Model<InferAttributes<Correction>, InferCreationAttributes<Correction>> {
+  declare id: CreationOptional<number>;
+  declare advisoryId: number;
+  declare supersedesAdvisoryId: number;
+  /** The proposal whose published limit is corrected. */
+  declare proposalId: number;
+  /** The decision behind the corrected advisory (the original one for a chair's correction, the new vote's otherwise). */
+  declare decisionId: number;
+  declare kind: 'chair' | 'vote';
+  declare correctedLimit: number;
+  declare previousLimit: number;
+  declare reason: string;
+  declare override: boolean;
+  declare votes: VoteCount | null;
+  declare rules: RulesSnapshot;
+  declare decidedBy: number;
+  declare createdAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize): void {
+    Correction.init({
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      advisoryId: { type: DataTypes.INTEGER, allowNull: false, field: 'advisory_id' },
+      supersedesAdvisoryId: { type: DataTypes.INTEGER, allowNull: false, field: 'supersedes_advisory_id' },
+      proposalId: { type: DataTypes.INTEGER, allowNull: false, field: 'proposal_id' },
+      decisionId: { type: DataTypes.INTEGER, allowNull: false, field: 'decision_id' },
+      kind: { type: DataTypes.ENUM('chair', 'vote'), allowNull: false },
+      correctedLimit: { type: DataTypes.DOUBLE, allowNull: false, field: 'corrected_limit' },
+      previousLimit: { type: DataTypes.DOUBLE, allowNull: false, field: 'previous_limit' },
+      reason: { type: DataTypes.TEXT, allowNull: false },
+      override: { type: DataTypes.BOOLEAN, allowNull: false },
+      votes: { type: DataTypes.JSON, allowNull: true },
+      rules: { type: DataTypes.JSON, allowNull: false },
+      decidedBy: { type: DataTypes.INTEGER, allowNull: false, field: 'decided_by' },
+      createdAt: { type: DataTypes.DATE, field: 'created_at' },
+    }, { sequelize, tableName: 'corrections', modelName: 'Correction', updatedAt: false });
   }
 }

@@ -9,24 +9,25 @@ import { Proposal } from '../proposals/proposal.model';
 import { userNames } from '../users/user-names';
 import type { ProposalListItem } from '../proposals/proposal.schemas';
 import { listItems } from './proposal-standing';
-import { BoardRules, Comment, Decision, Vote, type VoteCount } from './board.models';
-import type { AuditView, BoardView, CommentView } from './board.schemas';
+import { BoardRules, Comment, Correction, Decision, Vote, type VoteCount } from './board.models';
+import type { AuditView, BoardView, CommentView, CorrectionView, RulesView } from './board.schemas';
 
 export class BoardService {
   constructor(private readonly sequelize: Sequelize, private readonly publisher: AdvisoryPublisher) {}
 
-  async rules(): Promise<{ quorum: number; majority: number }> {
+  async rules(): Promise<RulesView> {
     const r = (await BoardRules.findByPk(1))!;
-    return { quorum: r.quorum, majority: r.majority };
+    return { quorum: r.quorum, majority: r.majority, chairMayCorrect: r.chairMayCorrect };
   }
 
-  async setRules(actorId: number, body: { quorum: number; majority: number }) {
+  async setRules(actorId: number, body: { quorum: number; majority: number; chairMayCorrect?: boolean }): Promise<RulesView> {
     return this.sequelize.transaction(async (t) => {
       const r = (await BoardRules.findByPk(1, { transaction: t, lock: t.LOCK.UPDATE }))!;
-      const before = { quorum: r.quorum, majority: r.majority };
-      await r.update({ ...body, updatedBy: actorId }, { transaction: t });
-      await recordAudit({ actorId, action: 'board.rules', entityType: 'board_rules', entityId: 1, before, after: body }, t);
-      return body;
+      const before = { quorum: r.quorum, majority: r.majority, chairMayCorrect: r.chairMayCorrect };
+      const after = { quorum: body.quorum, majority: body.majority, chairMayCorrect: body.chairMayCorrect ?? r.chairMayCorrect };
+      await r.update({ ...after, updatedBy: actorId }, { transaction: t });
+      await recordAudit({ actorId, action: 'board.rules', entityType: 'board_rules', entityId: 1, before, after }, t);
+      return after;
     });
   }
 
@@ -80,7 +81,12 @@ export class BoardService {
         votes: count, decidedBy: actor.id,
       }, { transaction: t });
       await recordAudit({ actorId: actor.id, action: `proposal.${body.outcome}`, entityType: 'proposal', entityId: proposalId, before: { quota: proposal.quota }, after: { limit, override: decision.override, votes: count, reason: body.reason } }, t);
-      const advisory = limit !== null ? await this.publisher.publish({ decision, proposal, limit, override: decision.override, actorId: actor.id }, t) : null;
+      // A revision approved while an earlier version's advisory is in force corrects it, by this new vote.
+      const corrected = limit !== null ? await this.advisoryInForce(proposal, t) : null;
+      const supersedes = corrected ? {
+        advisory: corrected.advisory, reason: body.reason, kind: 'vote' as const, votes: count, rules: await BoardRules.snapshot(t), proposalId: corrected.proposalId,
+      } : undefined;
+      const advisory = limit !== null ? await this.publisher.publish({ decision, proposal, limit, override: decision.override, actorId: actor.id, supersedes }, t) : null;
       return { decisionId: decision.id, advisoryId: advisory?.id ?? null };
     });
     this.publisher.afterCommit();
@@ -95,11 +101,18 @@ export class BoardService {
       this.rules(),
     ]);
     const advisoryIds = decision ? (await Advisory.findAll({ where: { decisionId: decision.id }, attributes: ['id'], order: [['id', 'ASC']] })).map((a) => a.id) : [];
+    const corrections = await Correction.findAll({ where: { proposalId }, order: [['id', 'ASC']] });
+    const corrects = decision ? await Correction.findOne({ where: { decisionId: decision.id, kind: 'vote' } }) : null;
+    const current = await this.newestInChain(advisoryIds);
+    const docs = new Map((await Advisory.findAll({
+      where: { id: [...corrections.flatMap((c) => [c.advisoryId, c.supersedesAdvisoryId]), ...(corrects ? [corrects.supersedesAdvisoryId] : [])] }, attributes: ['id', 'docId', 'decisionId'],
+    })).map((a) => [a.id, a]));
+    const votedOn = new Map((await Decision.findAll({ where: { id: corrections.map((c) => c.decisionId) }, attributes: ['id', 'proposalId'] })).map((d) => [d.id, d.proposalId]));
     const audit = await AuditEvent.findAll({
       where: { [Op.or]: [{ entityType: 'proposal', entityId: proposalId }, ...(advisoryIds.length ? [{ entityType: 'advisory', entityId: advisoryIds }] : [])] },
       order: [['id', 'ASC']],
     });
-    const names = await userNames([...comments.map((c) => c.authorId), ...votes.map((v) => v.voterId), ...audit.map((a) => a.actorId ?? 0), decision?.decidedBy ?? 0]);
+    const names = await userNames([...comments.map((c) => c.authorId), ...votes.map((v) => v.voterId), ...audit.map((a) => a.actorId ?? 0), decision?.decidedBy ?? 0, ...corrections.map((c) => c.decidedBy)]);
     const byId = new Map<number, CommentView>();
     const roots: CommentView[] = [];
     for (const c of comments) {
@@ -112,8 +125,15 @@ export class BoardService {
       votes: votes.map((v) => ({ voterId: v.voterId, voterName: names.get(v.voterId) ?? '?', choice: v.choice, reason: v.reason, updatedAt: v.updatedAt.toISOString() })),
       decision: decision ? {
         outcome: decision.outcome, approvedLimit: decision.approvedLimit, reason: decision.reason, override: decision.override, votes: decision.votes,
-        decidedByName: names.get(decision.decidedBy) ?? '?', createdAt: decision.createdAt.toISOString(), advisoryId: advisoryIds[advisoryIds.length - 1] ?? null,
+        decidedByName: names.get(decision.decidedBy) ?? '?', createdAt: decision.createdAt.toISOString(), advisoryId: current?.id ?? null,
+        corrects: corrects ? { proposalId: corrects.proposalId, docId: docs.get(corrects.supersedesAdvisoryId)?.docId ?? '', limit: corrects.previousLimit } : null,
       } : null,
+      corrections: corrections.map((c): CorrectionView => ({
+        id: c.id, kind: c.kind, correctedLimit: c.correctedLimit, previousLimit: c.previousLimit, reason: c.reason, override: c.override, votes: c.votes,
+        decidedByName: names.get(c.decidedBy) ?? '?', createdAt: c.createdAt.toISOString(), advisoryId: c.advisoryId,
+        docId: docs.get(c.advisoryId)?.docId ?? '', supersededDocId: docs.get(c.supersedesAdvisoryId)?.docId ?? '',
+        viaProposalId: c.kind === 'vote' ? votedOn.get(c.decisionId) ?? null : null,
+      })),
       audit: audit.map((a): AuditView => ({ id: a.id, actorName: a.actorId ? names.get(a.actorId) ?? null : null, action: a.action, entityType: a.entityType, entityId: a.entityId, before: a.before, after: a.after, createdAt: a.createdAt.toISOString() })),
     };
   }
@@ -121,6 +141,31 @@ export class BoardService {
   /** Submitted proposals for the board, newest first: who submitted each, for which stock and region, and where it stands. */
   async queue(): Promise<ProposalListItem[]> {
     return listItems(await Proposal.findAll({ where: { status: 'submitted' }, order: [['submittedAt', 'DESC'], ['id', 'DESC']] }));
+  }
+
+  /** The advisory in force for an earlier version of this proposal (following its revisions back), if any. */
+  private async advisoryInForce(proposal: Proposal, t: Transaction): Promise<{ advisory: Advisory; proposalId: number } | null> {
+    let id = proposal.revisesId;
+    for (let depth = 0; id !== null && depth < 50; depth++) {
+      const earlier = await Proposal.findByPk(id, { transaction: t });
+      if (!earlier) return null;
+      const d = await Decision.findOne({ where: { proposalId: earlier.id, outcome: 'approved' }, transaction: t });
+      if (d) {
+        const all = await Advisory.findAll({ where: { decisionId: d.id }, attributes: ['id'], transaction: t });
+        const current = await this.newestInChain(all.map((a) => a.id), t);
+        if (current) return { advisory: current, proposalId: earlier.id };
+      }
+      id = earlier.revisesId;
+    }
+    return null;
+  }
+
+  /** Follows supersession from any of these advisories to the one in force. */
+  private async newestInChain(ids: number[], t?: Transaction): Promise<Advisory | null> {
+    if (ids.length === 0) return null;
+    let a = await Advisory.findByPk(ids[0]!, { transaction: t, lock: t ? t.LOCK.UPDATE : undefined });
+    for (let i = 0; a?.supersededById && i < 100; i++) a = await Advisory.findByPk(a.supersededById, { transaction: t, lock: t ? t.LOCK.UPDATE : undefined });
+    return a;
   }
 
   private async submitted(id: number): Promise<Proposal> {

@@ -7,17 +7,24 @@ import { Stock } from '../stocks/stock.model';
 import { userNames } from '../users/user-names';
 import { Decision } from './board.models';
 
-/** The board's decision on each proposal and the limit now in force. */
+/** The board's decision on each proposal and the limit now in force (following corrections to the newest advisory). */
 export async function standings(proposalIds: number[]): Promise<Map<number, ProposalStanding>> {
   if (proposalIds.length === 0) return new Map();
   const decisions = await Decision.findAll({ where: { proposalId: proposalIds } });
-  const advisories = decisions.length ? await Advisory.findAll({
-    where: { decisionId: decisions.map((d) => d.id), supersededById: null }, attributes: ['id', 'decisionId', 'approvedLimit', 'supersedesId'],
-  }) : [];
+  const approved = decisions.filter((d) => d.outcome === 'approved');
+  const own = approved.length ? await Advisory.findAll({ where: { decisionId: approved.map((d) => d.id) }, attributes: ['id', 'decisionId'] }) : [];
+  const all = own.length ? await Advisory.findAll({ attributes: ['id', 'approvedLimit', 'supersededById'] }) : [];
+  const byId = new Map(all.map((a) => [a.id, a]));
+  const inForce = (id: number) => {
+    let a = byId.get(id);
+    for (let i = 0; a?.supersededById && i < 100; i++) a = byId.get(a.supersededById);
+    return a;
+  };
   return new Map(decisions.map((d) => {
-    const current = advisories.find((a) => a.decisionId === d.id);
+    const first = own.filter((a) => a.decisionId === d.id).sort((x, y) => x.id - y.id)[0];
+    const current = first ? inForce(first.id) : undefined;
     return [d.proposalId, {
-      outcome: d.outcome, limit: current?.approvedLimit ?? d.approvedLimit, corrected: !!current?.supersedesId, decidedAt: d.createdAt.toISOString(),
+      outcome: d.outcome, limit: current?.approvedLimit ?? d.approvedLimit, corrected: !!current && current.id !== first?.id, decidedAt: d.createdAt.toISOString(),
     }];
   }));
 }

@@ -15,6 +15,8 @@ import { DATA, ROOT, profile } from './local-env';
 interface Totals { passed: number; failed: number; skipped?: number; error?: boolean }
 
 const only = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length);
+/** With --only=api, spec files named after `--` narrow the run: `npm run test:api -- test/api/board.spec.ts`. */
+const specFiles = only === 'api' ? process.argv.slice(2).filter((a) => a.endsWith('.spec.ts')) : [];
 const results: { name: string; totals: Totals; exit: number }[] = [];
 
 function readTotals(file: string): Totals {
@@ -62,7 +64,7 @@ try {
     ensureDatabase(test.server, test.db, true);
     ensureDatabase(test.server, { ...test.db, name: 'brinkmark_scratch' }, true);
     run('server specs', process.execPath,
-      ['--import', 'tsx', join(ROOT, 'node_modules', 'jasmine', 'bin', 'jasmine.js'), '--config=test/jasmine.json'],
+      ['--import', 'tsx', join(ROOT, 'node_modules', 'jasmine', 'bin', 'jasmine.js'), '--config=test/jasmine.json', ...specFiles],
       env, join(DATA, 'jasmine-result.json'));
   }
   if (!only || only === 'e2e') {

@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
-import type { BoardView } from '../../api/board/board.schemas';
+import type { BoardView, RulesView } from '../../api/board/board.schemas';
 import type { ProposalListItem } from '../../api/proposals/proposal.schemas';
 
 @Injectable({ providedIn: 'root' })
@@ -32,11 +32,11 @@ export class BoardApi {
     return this.http.post(`/api/advisories/${advisoryId}/supersede`, { limit, reason, override });
   }
 
-  rules(): Observable<{ quorum: number; majority: number }> {
-    return this.http.get<{ rules: { quorum: number; majority: number } }>('/api/board/rules').pipe(map((r) => r.rules));
+  rules(): Observable<RulesView> {
+    return this.http.get<{ rules: RulesView }>('/api/board/rules').pipe(map((r) => r.rules));
   }
 
-  setRules(quorum: number, majority: number): Observable<unknown> {
-    return this.http.put('/api/board/rules', { quorum, majority });
+  setRules(rules: RulesView): Observable<unknown> {
+    return this.http.put('/api/board/rules', rules);
   }
 }

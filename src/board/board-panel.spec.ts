@@ -9,7 +9,8 @@ import { BoardApi } from './board-api';
 import { BoardPanel } from './board-panel';
 
 const VIEW: BoardView = {
-  rules: { quorum: 2, majority: 0.5 },
+  rules: { quorum: 2, majority: 0.5, chairMayCorrect: true },
+  corrections: [],
   comments: [{ id: 1, parentId: null, authorId: 5, authorName: 'Odhran Pike', body: 'Why this margin?', createdAt: '2026-12-02T10:00:00Z',
     replies: [{ id: 2, parentId: 1, authorId: 2, authorName: 'Tomas Reyl', body: 'It is the 5% quantile.', createdAt: '2026-12-02T10:05:00Z', replies: [] }] }],
   votes: [{ voterId: 5, voterName: 'Odhran Pike', choice: 'approve', reason: 'Fine.', updatedAt: '2026-12-02T10:10:00Z' }],

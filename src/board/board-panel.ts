@@ -7,6 +7,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import type { BoardView } from '../../api/board/board.schemas';
 import type { ProposalView } from '../../api/proposals/proposal.schemas';
@@ -17,7 +18,7 @@ import { BoardApi } from './board-api';
 /** The board's work on a submitted proposal: threaded comments, votes, the chair's decision and the audit log. */
 @Component({
   selector: 'bm-board-panel',
-  imports: [FormsModule, DatePipe, DecimalPipe, JsonPipe, NgTemplateOutlet, MatButtonModule, MatButtonToggleModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatIconModule],
+  imports: [RouterLink, FormsModule, DatePipe, DecimalPipe, JsonPipe, NgTemplateOutlet, MatButtonModule, MatButtonToggleModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatIconModule],
   templateUrl: './board-panel.html',
   styleUrl: './board-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -96,16 +96,57 @@ describe('quota board, decisions and advisories', () => {
     expect(text).toContain('OVERRIDE');
   });
 
+  it('under a rule that needs a vote, refuses the chair alone and records a correction by the new vote on a revision', async () => {
+    const admin = await signIn(app, 'admin');
+    const { proposalId, lower5 } = await submittedProposal(assessor, 'red-grouse', 0.9);
+    await vote(odhran, proposalId, 'approve').expect(201);
+    await vote(ana, proposalId, 'reject').expect(201);
+    await vote(chair, proposalId, 'approve').expect(201);
+    const first = await decide(chair, proposalId, { outcome: 'approved' }).expect(201);
+    try {
+      await admin.agent.put('/api/board/rules').set('x-csrf-token', admin.csrf).send({ quorum: 2, majority: 0.5, chairMayCorrect: false }).expect(200);
+      const refused = await chair.agent.post(`/api/advisories/${first.body.advisoryId}/supersede`).set('x-csrf-token', chair.csrf).send({ limit: Math.round(lower5 * 0.7), reason: 'Chair would lower it alone.' }).expect(409);
+      expect(refused.body.error.code).toBe('CORRECTION_NEEDS_VOTE');
+      expect((await Advisory.findByPk(first.body.advisoryId))!.supersededById).toBeNull();
+      const revised = await assessor.agent.post(`/api/proposals/${proposalId}/revise`).set('x-csrf-token', assessor.csrf).expect(201);
+      const rid = revised.body.proposal.id as number;
+      const lower = Math.round(lower5 * 0.7);
+      await assessor.agent.patch(`/api/proposals/${rid}`).set('x-csrf-token', assessor.csrf).send({ quota: lower }).expect(200);
+      await assessor.agent.post(`/api/proposals/${rid}/submit`).set('x-csrf-token', assessor.csrf).expect(200);
+      await vote(odhran, rid, 'approve').expect(201);
+      await vote(ana, rid, 'approve').expect(201);
+      await vote(chair, rid, 'abstain').expect(201);
+      const second = await decide(chair, rid, { outcome: 'approved', reason: 'Survey revision lowers the fold; corrected by a new vote.' }).expect(201);
+      const a = (await Advisory.findByPk(second.body.advisoryId))!;
+      expect(a.supersedesId).toBe(first.body.advisoryId);
+      const text = pdfText(a.pdf);
+      expect(text).toContain('Correction by a new board vote');
+      expect(text).toContain('Votes on the correction: 2 approve, 0 reject, 1 abstain');
+      expect(text).toContain('(2 approve, 1 reject, 0 abstain); those votes were on that limit');
+      const original = (await assessor.agent.get(`/api/proposals/${proposalId}/board`).expect(200)).body;
+      expect(original.corrections).toEqual([jasmine.objectContaining({ kind: 'vote', correctedLimit: lower, votes: { approve: 2, reject: 0, abstain: 1 }, viaProposalId: rid })]);
+      expect(original.decision.advisoryId).toBe(a.id);
+      const revisedView = (await assessor.agent.get(`/api/proposals/${rid}/board`).expect(200)).body;
+      expect(revisedView.decision.corrects).toEqual(jasmine.objectContaining({ proposalId, limit: first.body.advisoryId ? (await Advisory.findByPk(first.body.advisoryId))!.approvedLimit : 0 }));
+    } finally {
+      await admin.agent.put('/api/board/rules').set('x-csrf-token', admin.csrf).send({ quorum: 2, majority: 0.5, chairMayCorrect: true }).expect(200);
+    }
+  });
+
   describe('a published advisory', () => {
     let advisoryId: number;
     let limit: number;
     let moorfellSub: Subscription;
     let expectedRecipients: string[];
+    let proposalOfAdvisory: number;
+    let stockOfAdvisory: number;
 
     beforeAll(async () => {
       const keeper = (await User.findOne({ where: { email: 'keeper@moorfell-estate.example' } }))!;
       moorfellSub = await Subscription.create({ userId: keeper.id, regionId: keeper.regionId!, plan: 'yearly', stripeCustomerId: 'cus_test', stripeCheckoutId: `cs_test_${Date.now()}`, stripeSubscriptionId: null, status: 'active', currentPeriodEnd: new Date(Date.now() + 30 * 86_400_000) });
-      const { proposalId, lower5 } = await submittedProposal(assessor, 'red-grouse', 0.9);
+      const { proposalId, lower5, stock } = await submittedProposal(assessor, 'red-grouse', 0.9);
+      proposalOfAdvisory = proposalId;
+      stockOfAdvisory = stock.id;
       await vote(odhran, proposalId, 'approve').expect(201);
       await vote(ana, proposalId, 'abstain').expect(201);
       limit = Math.round(lower5 * 0.85);
@@ -155,6 +196,18 @@ describe('quota board, decisions and advisories', () => {
       expect(after.approvedLimit).toBe(before.approvedLimit);
       expect(after.supersededById).toBe(corr.body.advisory.id);
       expect(pdfText((await Advisory.findByPk(corr.body.advisory.id))!.pdf)).toContain(`supersedes ${before.docId}`);
+      // the correction carries its own decision record: the chair alone, its own reason, no votes passed off as its own
+      const corrected = pdfText((await Advisory.findByPk(corr.body.advisory.id))!.pdf);
+      expect(corrected).toContain('Correction by the chair (no board vote)');
+      expect(corrected).toContain('Reason for the correction: Limit corrected after a landing record was revised.');
+      expect(corrected).toContain('those votes were on that limit, not on this one');
+      expect(corrected).not.toContain('Board decision');
+      const board = (await assessor.agent.get(`/api/proposals/${proposalOfAdvisory}/board`).expect(200)).body;
+      expect(board.corrections).toEqual([jasmine.objectContaining({ kind: 'chair', correctedLimit: limit - 50, previousLimit: limit, votes: null, reason: 'Limit corrected after a landing record was revised.' })]);
+      expect(board.decision.advisoryId).toBe(corr.body.advisory.id);
+      expect(board.audit.map((e: { action: string }) => e.action)).toContain('proposal.correct.chair');
+      const listed = (await assessor.agent.get(`/api/stocks/${stockOfAdvisory}/proposals`).expect(200)).body.proposals.find((p: { id: number }) => p.id === proposalOfAdvisory);
+      expect(listed.standing).toEqual(jasmine.objectContaining({ outcome: 'approved', limit: limit - 50, corrected: true }));
       expect((await chair.agent.post(`/api/advisories/${advisoryId}/supersede`).set('x-csrf-token', chair.csrf).send({ limit: 10, reason: 'Second correction of the old one.' }).expect(409)).body.error.code).toBe('ALREADY_SUPERSEDED');
     });
 
