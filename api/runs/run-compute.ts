@@ -3,9 +3,10 @@ import { assessSurplus, bootstrapFit, quotaStudy } from '../engine/assessment';
 import { quantile } from '../engine/uncertainty/bootstrap';
 import { earlyWarning } from '../engine/diagnostics/early-warning';
 import { diagnoseSurplus } from '../engine/diagnostics/diagnose';
-import { fitPredatorPrey } from '../engine/linked/fit-predator-prey';
-import { harvestBifurcations, interiorEquilibrium } from '../engine/linked/predator-prey';
-import { filledCatches, type StockSeries } from '../engine/data/series';
+import { assessLinked, bootstrapLinked, linkedIntervals } from '../engine/linked/linked-assessment';
+import type { LinkedModelName } from '../engine/linked/fit-predator-prey';
+import { pairStudy } from '../engine/linked/pair-study';
+import type { StockSeries } from '../engine/data/series';
 import type { SurplusModelName } from '../engine/surplus/surplus';
 import type { PredatorPreyRunResults, RunOptions, RunResults, SurplusRunResults } from './run.schemas';
 
@@ -42,34 +43,27 @@ async function surplusRun(series: StockSeries, model: SurplusModelName, o: RunOp
   };
 }
 
-function predatorPreyRun(series: StockSeries, model: 'rosenzweig-macarthur' | 'lotka-volterra', o: RunOptions, progress: Progress): PredatorPreyRunResults {
-  progress(0.05, 'Fitting the predator-prey model');
-  const fit = fitPredatorPrey(series, { model, e: o.conversion });
-  progress(0.7, 'Continuing equilibria in prey and predator catch');
-  const preyCatch = filledCatches(series, 'catches').catches;
-  const predatorCatch = filledCatches(series, 'predatorCatches').catches;
-  const [N, P] = interiorEquilibrium(fit.spec);
-  const empty = { points: [], events: [] };
-  const ok = N > 0 && P > 0;
-  const bifurcations = {
-    preyCatch: ok ? harvestBifurcations(fit.spec, {}, 'preyCatch', [N, P], 4 * Math.max(...preyCatch)) : empty,
-    predatorCatch: ok ? harvestBifurcations(fit.spec, {}, 'predatorCatch', [N, P], 4 * Math.max(...predatorCatch)) : empty,
+async function predatorPreyRun(series: StockSeries, model: LinkedModelName, o: RunOptions, progress: Progress): Promise<PredatorPreyRunResults> {
+  const opts = { model, conversion: o.conversion, saturation: o.saturation };
+  const a = assessLinked(series, opts, (f, stage) => progress(0.4 * f, stage));
+  const reps = o.bootstrap > 0
+    ? await bootstrapLinked(series, opts, a.fit, { replicates: o.bootstrap, seed: o.seed, workers: 2, onProgress: (d, t) => progress(0.2 + (0.7 * d) / t, `Bootstrap ${d} of ${t}`) })
+    : [];
+  progress(0.92, 'Margins of the present catches in the catch plane');
+  const n = a.preyCatch.length - 1;
+  const current = pairStudy(a.fit.spec, reps, a.preyCatch[n]!, a.predatorCatch[n]!, {
+    years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed + 101, preyMax: a.catchPlane.preyMax, predatorMax: a.catchPlane.predatorMax,
+  });
+  progress(0.99, 'Done');
+  return {
+    kind: 'predator-prey', years: series.years, ...a,
+    bootstrap: reps.length ? { replicates: reps.length, intervals: linkedIntervals(reps), draws: reps } : null,
+    current,
   };
-  const K = fit.spec.params.K;
-  const preyNullcline: [number, number][] = [];
-  if (fit.spec.model === 'rosenzweig-macarthur') {
-    const { r, a, h } = fit.spec.params;
-    for (let i = 1; i <= 60; i++) { const n = (K * i) / 60; preyNullcline.push([n, (r / a) * (1 - n / K) * (1 + a * h * n)]); }
-  } else {
-    const { a, b } = fit.spec.params;
-    for (let i = 1; i <= 60; i++) { const n = (K * i) / 60; preyNullcline.push([n, (a / b) * (1 - n / K)]); }
-  }
-  progress(0.98, 'Done');
-  return { kind: 'predator-prey', fit, years: series.years, preyCatch, predatorCatch, bifurcations, preyNullcline, predatorNullcline: ok ? N : null };
 }
 
 /** Runs the model a run asks for. */
 export async function computeRun(series: StockSeries, model: string, options: RunOptions, progress: Progress): Promise<RunResults> {
-  if (model === 'rosenzweig-macarthur' || model === 'lotka-volterra') return predatorPreyRun(series, model, options, progress);
+  if (model === 'rosenzweig-macarthur' || model === 'lotka-volterra') return predatorPreyRun(series, model, { ...options, conversion: options.conversion ?? 0.25 }, progress);
   return surplusRun(series, model as SurplusModelName, options, progress);
 }

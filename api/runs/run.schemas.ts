@@ -8,6 +8,10 @@ import type { FoldAnalysis } from '../engine/surplus/fold';
 import type { QuotaStudy } from '../engine/assessment';
 import type { Replicate } from '../engine/uncertainty/bootstrap';
 import type { SurplusDiagnostics } from '../engine/diagnostics/diagnose';
+import type { LinkedAssessment } from '../engine/linked/linked-assessment';
+import type { CatchPlane } from '../engine/linked/catch-plane';
+import type { LinkedReplicate } from '../engine/linked/bootstrap-linked';
+import type { PairStudy } from '../engine/linked/pair-study';
 
 export const SURPLUS_MODELS = ['schaefer', 'pella-tomlinson', 'fox'] as const;
 export const PREDATOR_PREY_MODELS = ['rosenzweig-macarthur', 'lotka-volterra'] as const;
@@ -33,7 +37,8 @@ export const startRunSchema = z.object({
   datasetId: z.number().int().positive(),
   model: z.enum([...SURPLUS_MODELS, ...PREDATOR_PREY_MODELS]),
   shape: z.number().min(0.05).max(5).optional(),
-  bootstrap: z.number().int().min(0).max(5000).default(500),
+  /** Replicates; default 500 for single stocks and 100 for linked ones (each linked refit integrates two species). */
+  bootstrap: z.number().int().min(0).max(5000).optional(),
   seed: z.number().int().min(0).max(2_147_483_647).default(1),
   risk: z.number().gt(0).lt(0.5).default(0.05),
   limit: z.number().min(0).max(2).default(0.4),
@@ -43,13 +48,17 @@ export const startRunSchema = z.object({
   years: z.number().int().min(1).max(50).default(10),
   processSd: z.number().min(0).max(1).default(0.1),
   limitFraction: z.number().min(0.05).max(1).default(0.5),
-  conversion: z.number().gt(0).max(1).default(0.25),
+  /** Predator-prey: conversion efficiency e, fixed at a value or estimated. */
+  conversion: z.union([z.number().gt(0, 'above 0').max(1, 'at most 1'), z.literal('estimate')]).default(0.25),
+  /** Rosenzweig-MacArthur: saturation a·h·K (handling time h = s/(aK)), fixed at a value or estimated. */
+  saturation: z.union([z.number().min(0).max(20, 'at most 20'), z.literal('estimate')]).default(0.5),
   diagnostics: z.boolean().default(true),
   peel: z.number().int().min(1).max(10).default(5),
   jitter: z.number().int().min(0).max(100).default(20),
   fixed: fixedSchema.optional(),
   priors: priorsSchema.optional(),
-}).strict().refine((v) => v.trigger > v.limit, { path: ['trigger'], message: 'the trigger must be above the limit' });
+}).strict().refine((v) => v.trigger > v.limit, { path: ['trigger'], message: 'the trigger must be above the limit' })
+  .transform((v) => ({ ...v, bootstrap: v.bootstrap ?? ((PREDATOR_PREY_MODELS as readonly string[]).includes(v.model) ? 100 : 500) }));
 
 export type StartRunBody = z.infer<typeof startRunSchema>;
 /** Options as stored: runs from before the diagnostics and data-poor options lack those fields. */
@@ -83,6 +92,12 @@ export interface PredatorPreyRunResults {
   /** Prey nullcline as [N, P] points; the predator nullcline is the vertical line N = predatorNullcline. */
   preyNullcline: [number, number][];
   predatorNullcline: number | null;
+  /** Absent on runs made before model comparison, catch planes and linked bootstraps were added. */
+  comparison?: LinkedAssessment['comparison'];
+  catchPlane?: CatchPlane;
+  bootstrap?: { replicates: number; intervals: Record<string, [number, number]>; draws: LinkedReplicate[] } | null;
+  /** Margins, crossing risk and projections at the last year's pair of catches. */
+  current?: PairStudy;
 }
 
 export type RunResults = SurplusRunResults | PredatorPreyRunResults;

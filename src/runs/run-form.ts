@@ -22,6 +22,8 @@ function triggerAboveLimit(c: AbstractControl): ValidationErrors | null {
   return typeof limit === 'number' && typeof c.value === 'number' && c.value <= limit ? { notAboveLimit: true } : null;
 }
 
+const fixedOrEstimate = (v: string): number | 'estimate' => (v.trim() === 'estimate' ? 'estimate' : Number(v));
+
 /** Options of a new run, validated here and again by the server. */
 @Component({
   selector: 'bm-run-form',
@@ -38,6 +40,7 @@ export class RunForm {
   private readonly api = inject(RunApi);
   protected readonly models = computed(() => (this.stock().kind === 'predator-prey' ? LINKED : SINGLE));
   protected readonly linked = computed(() => this.stock().kind === 'predator-prey');
+
   protected readonly failure = signal<string | null>(null);
   protected readonly serverFields = signal<Record<string, string[]>>({});
 
@@ -54,10 +57,14 @@ export class RunForm {
     years: [10, [Validators.required, Validators.min(1), Validators.max(50)]],
     processSd: [0.1, [Validators.required, Validators.min(0), Validators.max(1)]],
     candidates: ['', Validators.pattern(/^\s*(\d+(\.\d+)?\s*(,\s*\d+(\.\d+)?\s*)*)?$/)],
+    conversion: ['0.25', Validators.pattern(/^\s*(estimate|0?\.\d+|1(\.0*)?)\s*$/)],
+    saturation: ['0.5', Validators.pattern(/^\s*(estimate|\d+(\.\d+)?)\s*$/)],
   });
 
   constructor() {
     const c = this.form.controls;
+    // a linked refit integrates two species: fewer replicates by default
+    queueMicrotask(() => { if (this.linked()) c.bootstrap.setValue(100, { emitEvent: false }); });
     c.limit.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => c.trigger.updateValueAndValidity({ emitEvent: false }));
     // A message about the last attempt goes as soon as the form changes.
     this.form.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
@@ -76,10 +83,11 @@ export class RunForm {
     this.failure.set(null);
     try {
       const run = await firstValueFrom(this.api.start({
-        datasetId: v.datasetId, model: v.model as never, bootstrap: this.linked() ? 0 : v.bootstrap, seed: v.seed, risk: v.risk, limit: v.limit,
+        datasetId: v.datasetId, model: v.model as never, bootstrap: v.bootstrap, seed: v.seed, risk: v.risk, limit: v.limit,
         trigger: v.trigger, fTarget: v.fTarget, years: v.years, processSd: v.processSd,
         candidates: v.candidates.split(',').map((c) => c.trim()).filter(Boolean).map(Number),
         ...(v.model === 'pella-tomlinson' && v.shape ? { shape: v.shape } : {}),
+        ...(this.linked() ? { conversion: fixedOrEstimate(v.conversion), saturation: fixedOrEstimate(v.saturation) } : {}),
       }));
       this.started.emit(run);
     } catch (err) {

@@ -1,3 +1,4 @@
+import type { PredatorPreyRunResults } from '../../api/runs/run.schemas';
 import type { Express } from 'express';
 import { Dataset } from '../../api/datasets/dataset.model';
 import { RunQueue } from '../../api/runs/run-queue';
@@ -54,14 +55,20 @@ describe('model runs', () => {
 
   it('fits the linked sprat and cod stocks with Rosenzweig-MacArthur and continues both harvests', async () => {
     const who = await signIn(app, 'assessor');
-    const start = await who.agent.post('/api/runs').set('x-csrf-token', who.csrf).send({ datasetId: codData, model: 'rosenzweig-macarthur' }).expect(202);
-    const done = await waitForRun(who, start.body.run.id, finished);
+    const start = await who.agent.post('/api/runs').set('x-csrf-token', who.csrf).send({ datasetId: codData, model: 'rosenzweig-macarthur', bootstrap: 4 }).expect(202);
+    const done = await waitForRun(who, start.body.run.id, finished, 170_000);
     expect(done.run.status).toBe('succeeded');
-    const r = done.results as { kind: string; bifurcations: { predatorCatch: { events: { kind: string }[] } }; preyNullcline: unknown[] };
+    const r = done.results as unknown as PredatorPreyRunResults;
     expect(r.kind).toBe('predator-prey');
     expect(r.preyNullcline.length).toBe(60);
     expect(r.bifurcations.predatorCatch.events.length).toBeGreaterThan(0);
-  });
+    expect(r.fit.indices.map((i) => i.observed.length)).toEqual([36, 36]);
+    expect(r.fit.fixed.map((f) => f.name)).toEqual(['Conversion efficiency e', 'Saturation a·h·K']);
+    expect(r.comparison!.map((c) => c.model).sort()).toEqual(['lotka-volterra', 'rosenzweig-macarthur']);
+    expect(r.bootstrap!.replicates).toBe(4);
+    expect(r.catchPlane!.curves.find((c) => c.kind === 'hopf')!.points.length).toBeGreaterThan(0);
+    expect(r.current!.projection.prey.median.length).toBe(11);
+  }, 180_000);
 
   it('refuses a model that does not fit the data, and bad options, with every field named', async () => {
     const who = await signIn(app, 'assessor');

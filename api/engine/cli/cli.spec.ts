@@ -56,4 +56,35 @@ describe('engine command line', () => {
     expect(cli('fit', '--model', 'gompertz', '--input', 'x.csv').stderr).toContain('--model must be one of');
     expect(cli('quota', '--model', 'schaefer', '--input', 'x.csv', '--colour', 'red').status).toBe(2);
   });
+
+  it('fits a linked file with both models compared and the fixed quantities listed', () => {
+    const r = cli('fit', '--model', 'rosenzweig-macarthur', '--input', 'seeders/data/sprat-ridge-cod.csv', '--conversion', '0.2');
+    expect(r.status).withContext(r.stderr).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.fixed[0].value).toBe(0.2);
+    expect(out.comparison.map((c: { model: string }) => c.model)).toEqual(['rosenzweig-macarthur', 'lotka-volterra']);
+    // Burnham & Anderson (2002): AIC = 2k − 2 lnL
+    expect(out.aic).toBeCloseTo(2 * out.nParams - 2 * out.logLik, 8);
+    expect(out.indices.length).toBe(2);
+  });
+
+  it('refuses a linked file under a single-stock model and a bad conversion efficiency, exit 2', () => {
+    expect(cli('fit', '--model', 'schaefer', '--input', 'seeders/data/sprat-ridge-cod.csv').stderr).toContain('linked predator-prey file');
+    const bad = cli('fold', '--model', 'rosenzweig-macarthur', '--input', 'seeders/data/sprat-ridge-cod.csv', '--conversion', '3');
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toContain('--conversion must be');
+  });
+
+  it('prints the food chain\'s Lyapunov exponents, largest first, and the horizon ln(tolerance/error)/λ₁', () => {
+    const r = cli('horizon', '--model', 'food-chain', '--params', 'r=2,K=50000,yScale=20000,zScale=1000', '--error', '0.05');
+    expect(r.status).withContext(r.stderr).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.lyapunov.length).toBe(3);
+    expect(out.lyapunov[0]).toBeGreaterThan(out.lyapunov[1]);
+    expect(out.lyapunov[1]).toBeGreaterThan(out.lyapunov[2]);
+    // Hastings & Powell (1991) published shape is chaotic: λ₁ > 0, so the horizon is finite
+    expect(out.lyapunov[0]).toBeGreaterThan(0);
+    expect(out.horizonYears).toBeCloseTo(Math.log(out.tolerance / 0.05) / out.lyapunov[0], 8);
+    expect(cli('horizon', '--model', 'food-chain', '--params', 'r=2,K=-1').stderr).toContain('K must be a positive number');
+  });
 });

@@ -7,6 +7,10 @@
  *   npm run --silent cli -- diagnose --model schaefer --input FILE.csv [--peel 5] [--jitter 20] [--seed S]
  *   npm run --silent cli -- cascade --model ricker --params r=2.8,K=1000 [--harvest FROM:TO:STEP]   (cascade-command.ts)
  *   npm run --silent cli -- reserve --params r=0.5,K=100,D=2 --coast 60 --reserve 20:40 [--fishing F]   (reserve-command.ts)
+ * Linked files (prey_catch, predator_catch): fit and fold with --model rosenzweig-macarthur|lotka-volterra
+ *        [--conversion 0.25|estimate] [--saturation 0.5|estimate] [--bootstrap N]
+ *   npm run --silent cli -- horizon --model food-chain --params r=2,K=50000,yScale=20000,zScale=1000[,a1=5,...]
+ *        [--start X,Y,Z] [--rates F1,F2,F3] [--error 0.05]
  * Prints JSON on standard output; on bad input prints the problems on standard error and exits 2.
  */
 import { readFileSync } from 'node:fs';
@@ -18,6 +22,7 @@ import type { SurplusModelName } from '../surplus/surplus';
 import { UsageError } from './command-args';
 import { cascadeCommand } from './cascade-command';
 import { reserveCommand } from './reserve-command';
+import { linkedCommand, horizonCommand, LINKED_MODELS } from './cli-linked';
 
 const MODELS: SurplusModelName[] = ['schaefer', 'pella-tomlinson', 'fox'];
 
@@ -32,7 +37,8 @@ async function main(argv: string[]): Promise<unknown> {
   const [command, ...rest] = argv;
   if (command === 'cascade') return { engine: ENGINE_VERSION, ...cascadeCommand(rest) as object };
   if (command === 'reserve') return { engine: ENGINE_VERSION, ...reserveCommand(rest) as object };
-  if (!command || !['fit', 'fold', 'quota', 'diagnose'].includes(command)) throw new UsageError('usage: cli fit|fold|quota|diagnose --model MODEL --input FILE.csv [options] | cli cascade ... | cli reserve ...');
+  if (command === 'horizon') return horizonCommand(rest);
+  if (!command || !['fit', 'fold', 'quota', 'diagnose'].includes(command)) throw new UsageError('usage: cli fit|fold|quota|diagnose --model MODEL --input FILE.csv [options] | cli horizon ... | cli cascade ... | cli reserve ...');
   const { values: o } = parseArgs({
     args: rest, strict: true,
     options: {
@@ -40,16 +46,24 @@ async function main(argv: string[]): Promise<unknown> {
       seed: { type: 'string' }, risk: { type: 'string' }, replicates: { type: 'string' }, limit: { type: 'string' },
       trigger: { type: 'string' }, ftarget: { type: 'string' }, candidates: { type: 'string' }, years: { type: 'string' },
       'process-sd': { type: 'string' }, workers: { type: 'string' }, peel: { type: 'string' }, jitter: { type: 'string' },
+      conversion: { type: 'string' }, saturation: { type: 'string' },
     },
   });
   const model = o.model as SurplusModelName;
-  if (!MODELS.includes(model)) throw new UsageError(`--model must be one of ${MODELS.join(', ')}`);
+  const linkedModel = (LINKED_MODELS as readonly string[]).includes(o.model ?? '');
+  if (!MODELS.includes(model) && !linkedModel) throw new UsageError(`--model must be one of ${[...MODELS, ...LINKED_MODELS].join(', ')}`);
   if (!o.input) throw new UsageError('--input FILE.csv is required');
   let text: string;
   try { text = readFileSync(o.input, 'utf8'); } catch { throw new UsageError(`cannot read ${o.input}`); }
   const parsed = parseStockCsv(text);
   if (!parsed.ok) throw new UsageError(`${o.input} has ${parsed.errors.length} problem(s):\n` + parsed.errors.map((e) => `  line ${e.line}${e.column ? `, ${e.column}` : ''}: ${e.problem} ${e.fix}`).join('\n'));
-  if (parsed.kind !== 'single') throw new UsageError('the command line fits single stocks; this file is a linked predator-prey file');
+  if (linkedModel !== (parsed.kind === 'predator-prey')) {
+    throw new UsageError(linkedModel ? `${o.input} is a single-stock file: ${o.model} needs prey_catch, predator_catch and two surveys` : `${o.input} is a linked predator-prey file: use --model ${LINKED_MODELS.join(' or ')}`);
+  }
+  if (linkedModel) {
+    if (command !== 'fit' && command !== 'fold') throw new UsageError(`${command} works on single stocks; for linked stocks use fit (with --bootstrap) and fold`);
+    return linkedCommand(command as 'fit' | 'fold', parsed.series, o, (v, name) => num(v, name, 0));
+  }
   const opts = { model, shape: o.shape === undefined ? undefined : num(o.shape, 'shape', 1) };
   const seed = num(o.seed, 'seed', 1);
   const { fit, fold } = assessSurplus(parsed.series, opts);

@@ -1,5 +1,5 @@
 import { integrate } from '../numerics/ode';
-import { equilibriumStability, harvestBifurcations, interiorEquilibrium, predatorPreyRhs, rmHopfK, type PredatorPreySpec } from './predator-prey';
+import { equilibriumStability, harvestBifurcations, interiorEquilibrium, predatorPreyPath, predatorPreyRhs, rmHopfK, type PredatorPreySpec } from './predator-prey';
 
 // ../shared/check-values.md: Volterra (1926) Nature 118:558; Rosenzweig & MacArthur (1963) Am. Nat.
 // 97:209; Rosenzweig (1971) Science 171:385.
@@ -70,5 +70,36 @@ describe('predator-prey models', () => {
     const eig = equilibriumStability(spec, { preyCatch: hopf.h }, hopf.x[0]!, hopf.x[1]!).eigen;
     expect(Math.abs(eig.re[0]!)).toBeLessThan(1e-3);
     expect(Math.abs(eig.im[0]!)).toBeGreaterThan(0.1);
+  });
+});
+
+// A species at zero stays at zero; the other follows its own dynamics.
+describe('predator-prey path when one species dies out', () => {
+  const spec: PredatorPreySpec = { model: 'rosenzweig-macarthur', params: { r: 0.8, a: 0.02, h: 0.5, e: 0.5, m: 0.3, K: 1000 } };
+
+  it('prey without predators grows logistically: N(t) = K/(1 + (K/N0 − 1)e^{−rt}) (Verhulst 1838)', () => {
+    const path = predatorPreyPath(spec, [50, 0], new Array(10).fill(0), new Array(10).fill(0), 1e-10);
+    for (let t = 0; t <= 10; t++) {
+      expect(path.prey[t]!).toBeCloseTo(1000 / (1 + (1000 / 50 - 1) * Math.exp(-0.8 * t)), 6);
+      expect(path.predator[t]).toBe(0);
+    }
+    expect(path.predatorExtinctYear).toBe(0);
+    expect(path.preyExtinctYear).toBeNull();
+  });
+
+  it('predators without prey decline as e^{−mt}', () => {
+    const path = predatorPreyPath(spec, [0, 40], new Array(5).fill(0), new Array(5).fill(0), 1e-10);
+    for (let t = 0; t <= 5; t++) expect(path.predator[t]!).toBeCloseTo(40 * Math.exp(-0.3 * t), 8);
+  });
+
+  it('a predator fished out in year 2 leaves the prey growing, never set to zero', () => {
+    const path = predatorPreyPath(spec, [300, 5], [0, 0, 0, 0, 0, 0], [0, 0, 500, 500, 500, 500], 1e-10);
+    expect(path.predatorExtinctYear).toBe(2);
+    expect(path.collapseYear).toBe(2);
+    expect(path.predator.slice(3)).toEqual([0, 0, 0, 0]);
+    for (let t = 3; t <= 6; t++) expect(path.prey[t]!).toBeGreaterThan(path.prey[t - 1]!);
+    // after the predator is gone (years 3 → 6) the prey follows the logistic solution exactly
+    const n3 = path.prey[3]!;
+    expect(path.prey[6]!).toBeCloseTo(1000 / (1 + (1000 / n3 - 1) * Math.exp(-0.8 * 3)), 6);
   });
 });

@@ -57,20 +57,16 @@ export function interiorEquilibrium(spec: PredatorPreySpec, harvest: Harvest = {
   return [N, ((r * (1 - N / K) - fn) * (1 + a * h * N)) / a];
 }
 
-/** Jacobian of the right-hand side at (N, P), by central differences. */
+/** Jacobian of the right-hand side at (N, P) (analytic; a constant catch does not enter it). */
 export function jacobianAt(spec: PredatorPreySpec, harvest: Harvest, N: number, P: number): number[][] {
-  const f = predatorPreyRhs(spec, harvest);
-  const J = [[0, 0], [0, 0]];
-  const y = [N, P];
-  for (let k = 0; k < 2; k++) {
-    const s = 1e-6 * Math.max(1, Math.abs(y[k]!));
-    const a = y.slice(); const b = y.slice();
-    a[k]! += s; b[k]! -= s;
-    const fa = f(0, a), fb = f(0, b);
-    J[0]![k] = (fa[0]! - fb[0]!) / (2 * s);
-    J[1]![k] = (fa[1]! - fb[1]!) / (2 * s);
+  const fn = harvest.preyRate ?? 0, fp = harvest.predatorRate ?? 0;
+  if (spec.model === 'lotka-volterra') {
+    const { a, b, c, d, K } = spec.params;
+    return [[a * (1 - (2 * N) / K) - b * P - fn, -b * N], [d * P, -c + d * N - fp]];
   }
-  return J;
+  const { r, K, a, h, e, m } = spec.params;
+  const den = 1 + a * h * N;
+  return [[r * (1 - (2 * N) / K) - (a * P) / (den * den) - fn, -(a * N) / den], [(e * a * P) / (den * den), (e * a * N) / den - m - fp]];
 }
 
 /** Eigenvalues of the equilibrium, its stability and return rate. */
@@ -96,18 +92,41 @@ export function harvestBifurcations(spec: PredatorPreySpec, base: Harvest, vary:
   return continueBranch(sys, start, base[vary] ?? 0, { ds: 0.01, hMin: -1e-9, hMax, maxSteps: 4000 });
 }
 
-/** Start-of-year populations under annual catches of both species; a species reaching zero stays at zero. */
+/**
+ * Start-of-year populations under annual catches of both species. A species that reaches zero stays
+ * at zero; the other goes on with its own dynamics (a prey without predators grows logistically).
+ * `collapseYear` is the first year in which either species reached zero (null when neither did).
+ */
 export function predatorPreyPath(spec: PredatorPreySpec, y0: [number, number], preyCatch: number[], predatorCatch: number[], tol = 1e-8) {
   const prey = [y0[0]], predator = [y0[1]];
-  let y: number[] = [y0[0], y0[1]];
-  let collapseYear: number | null = null;
+  let y: number[] = [Math.max(y0[0], 0), Math.max(y0[1], 0)];
+  let collapseYear: number | null = y[0] === 0 || y[1] === 0 ? 0 : null;
+  const extinct: [number | null, number | null] = [y[0] === 0 ? 0 : null, y[1] === 0 ? 0 : null];
   for (let i = 0; i < preyCatch.length; i++) {
-    if (collapseYear !== null) { prey.push(0); predator.push(0); continue; }
-    const res = integrate(predatorPreyRhs(spec, { preyCatch: preyCatch[i], predatorCatch: predatorCatch[i] }), 0, y, 1, { tol, stopAtZero: true });
-    if (res.collapsed) collapseYear = i;
-    y = res.collapsed ? [0, 0] : res.y;
+    y = yearStep(spec, y, preyCatch[i]!, predatorCatch[i]!, tol);
+    for (const k of [0, 1] as const) if (y[k] === 0 && extinct[k] === null) extinct[k] = i;
+    if (collapseYear === null && (y[0] === 0 || y[1] === 0)) collapseYear = i;
     prey.push(y[0]!);
     predator.push(y[1]!);
   }
-  return { prey, predator, collapseYear };
+  return { prey, predator, collapseYear, preyExtinctYear: extinct[0], predatorExtinctYear: extinct[1] };
+}
+
+/** One year under constant catches; a species reaching zero is held at zero for the rest of the year. */
+export function yearStep(spec: PredatorPreySpec, y0: number[], preyCatch: number, predatorCatch: number, tol = 1e-8): number[] {
+  const f = predatorPreyRhs(spec, { preyCatch, predatorCatch });
+  const y = y0.map((v) => Math.max(v, 0));
+  let t = 0;
+  while (t < 1) {
+    const alive = [0, 1].filter((k) => y[k]! > 0);
+    if (alive.length === 0) break;
+    // integrate the living species only: a dead one contributes neither growth, food nor catch
+    const full = (z: number[]) => { const w = [0, 0]; alive.forEach((k, i) => { w[k] = z[i]!; }); return w; };
+    const g = (tt: number, z: number[]) => { const d = f(tt, full(z)); return alive.map((k) => d[k]!); };
+    const res = integrate(g, t, alive.map((k) => y[k]!), 1, { tol, stopAtZero: true, initialStep: Math.min(0.25, 1 - t) });
+    alive.forEach((k, i) => { y[k] = res.y[i]! > 0 ? res.y[i]! : 0; });
+    if (!res.collapsed) break;
+    t = res.t;
+  }
+  return y;
 }

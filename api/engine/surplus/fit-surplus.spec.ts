@@ -46,7 +46,7 @@ describe('fitting the demo scenario', () => {
   });
 
   it('recovers the sprat and ridge cod truth within the Hessian intervals of a Rosenzweig-MacArthur fit', () => {
-    const fit = fitPredatorPrey(data['sprat-ridge-cod']!, { model: 'rosenzweig-macarthur', e: SPRAT_COD_TRUTH.params.e });
+    const fit = fitPredatorPrey(data['sprat-ridge-cod']!, { model: 'rosenzweig-macarthur', conversion: SPRAT_COD_TRUTH.params.e });
     const t = SPRAT_COD_TRUTH.params;
     for (const [name, value] of [['r', t.r], ['K', t.K], ['attack', t.a], ['mortality', t.m]] as const) {
       const e = fit.estimates.find((x) => x.name === name)!;
