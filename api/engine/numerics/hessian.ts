@@ -45,7 +45,12 @@ export function covarianceFromHessian(H: number[][]): Covariance {
   const min = Math.min(...eig);
   const max = Math.max(...eig);
   if (!(min > 0) || !eig.every(Number.isFinite)) return { cov: null, minEigenvalue: min, conditionNumber: Infinity };
-  return { cov: inverse(m).to2DArray(), minEigenvalue: min, conditionNumber: max / min };
+  try {
+    return { cov: inverse(m).to2DArray(), minEigenvalue: min, conditionNumber: max / min };
+  } catch {
+    // why: a positive but tiny eigenvalue (a parameter on its bound) can still leave LU singular
+    return { cov: null, minEigenvalue: min, conditionNumber: Infinity };
+  }
 }
 
 /** Delta-method variance of g(x): ∇gᵀ Σ ∇g. */

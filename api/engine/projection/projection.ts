@@ -6,7 +6,7 @@ import type { Replicate } from '../uncertainty/bootstrap';
 import { quantile } from '../uncertainty/bootstrap';
 import { createRng } from '../numerics/random';
 import { biomassPath, productionSlope, type SurplusModelName } from '../surplus/surplus';
-import { equilibriaAt, surplusFold } from '../surplus/fold';
+import { equilibriaAt } from '../surplus/fold';
 
 export interface ProjectionRequest {
   model: SurplusModelName;
@@ -72,6 +72,6 @@ export function project(req: ProjectionRequest): ProjectionResult {
 function returnRateAt(model: SurplusModelName, params: { r: number; K: number; p: number }, hStar: number, h: number): number {
   if (h >= hStar) return 0;
   if (model === 'schaefer') return params.r * Math.sqrt(1 - h / hStar);
-  const eq = equilibriaAt(model, params, { hStar, bFold: surplusFold(model, params, 1).bFold, table: [] }, h);
+  const eq = equilibriaAt(model, params, { hStar }, h);
   return eq ? Math.max(0, -productionSlope(model, params, eq.stable)) : 0;
 }

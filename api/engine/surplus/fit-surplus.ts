@@ -1,11 +1,13 @@
 /**
- * Maximum-likelihood fit of a surplus-production model (Schaefer, Pella-Tomlinson, Fox) to catches
- * and survey indices: lognormal errors, q and σ concentrated out, several Nelder-Mead starts.
+ * Maximum-likelihood fit of a surplus-production model (any model in the registry) to catches and
+ * survey indices: lognormal errors, q and σ concentrated out, several Nelder-Mead starts.
  */
 import { concentratedIndexFit } from '../fit/likelihood';
 import { priorPenalty, type FixedParams, type ParamPriors } from '../fit/constraints';
 import { minimise } from '../numerics/nelder-mead';
 import { biomassPath, referencePoints, type SurplusModelName, type SurplusParams } from './surplus';
+import { productionModel } from './registry';
+import type { ShapeParam } from './production-model';
 import { filledCatches, type StockSeries } from '../data/series';
 import { type Bound, toFree, toNatural } from '../numerics/transforms';
 
@@ -23,11 +25,22 @@ export interface SurplusFitOptions {
   fixed?: FixedParams;
   /** Priors on r and B0/K: the objective becomes a penalised likelihood. */
   priors?: ParamPriors;
+  /** Allow the first year's biomass above K (B0/K up to 1.5); the fit then warns when it is. */
+  allowAboveK?: boolean;
+}
+
+/** A series that cannot be fitted as asked, with a message for the assessor. */
+export class FitInputError extends Error {
+  constructor(readonly code: string, message: string) {
+    super(message);
+  }
 }
 
 export interface SurplusProblem {
   model: SurplusModelName;
   bounds: Bound[];
+  /** The shape parameters estimated (their bounds are named by label and follow r, K and d0). */
+  shapes: ShapeParam[];
   catches: number[];
   filledYears: number[];
   nObs: number;
@@ -42,31 +55,45 @@ export interface SurplusProblem {
 }
 
 const COLLAPSE_PENALTY = 1e10;
+/** A largest annual harvest rate below this cannot scale the biomass (our threshold). */
+export const NEGLIGIBLE_HARVEST_RATE = 1e-3;
+
+const NO_REMOVALS = 'The biomass scale cannot be estimated without removals: every catch in the series is zero or negligible, so any carrying capacity fits the survey equally well. Fix K or the survey catchability q to fit it.';
 
 /** The likelihood problem for a series: bounds, decoding of free parameters and the objective. */
 export function surplusProblem(series: StockSeries, opts: SurplusFitOptions): SurplusProblem {
   const { catches, filledYears } = filledCatches(series);
-  const scale = Math.max(...catches, 1e-9);
   const fixed = opts.fixed ?? {};
-  const estimateShape = opts.model === 'pella-tomlinson' && opts.shape === undefined;
+  const fixedQ = fixed.q ?? {};
+  const pinned = fixed.K !== undefined || Object.keys(fixedQ).length > 0;
+  const maxCatch = Math.max(...catches, 0);
+  if (!(maxCatch > 0) && !pinned) throw new FitInputError('NO_REMOVALS', NO_REMOVALS);
+  const scale = maxCatch > 0 ? maxCatch : fixed.K !== undefined ? fixed.K / 10 : pinnedScale(series, fixedQ);
+  const m = productionModel(opts.model);
+  const shapes = m.shape.filter((s) => !(s.name === 'p' && opts.shape !== undefined));
   const all: Bound[] = [
-    { name: 'r', lo: 0.005, hi: 3, log: true },
+    { name: 'r', lo: m.rBounds?.[0] ?? 0.005, hi: m.rBounds?.[1] ?? 3, log: true },
     { name: 'K', lo: 0.5 * scale, hi: 1e4 * scale, log: true },
-    { name: 'd0', lo: 0.05, hi: 1.5, log: false },
+    { name: 'd0', lo: 0.05, hi: opts.allowAboveK ? 1.5 : 1, log: false },
+    ...shapes.map((s) => ({ name: s.label, lo: s.lo, hi: s.hi, log: s.log })),
   ];
-  if (estimateShape) all.push({ name: 'p', lo: 0.05, hi: 5, log: true });
-  // why: with MSY held (profiles), r follows from K and p, so r is not a free parameter
+  // why: with MSY held (profiles), r follows from K and the shape, so r is not a free parameter
   const bounds = all.filter((b) => !(b.name === 'r' && (fixed.r !== undefined || fixed.msy !== undefined)) && !(b.name === 'K' && fixed.K !== undefined) && !(b.name === 'd0' && fixed.d0 !== undefined));
   const at = (name: string) => bounds.findIndex((b) => b.name === name);
   const free = (name: string, u: number[]) => toNatural(bounds[at(name)]!, u[at(name)]!);
   const nObs = series.indices.reduce((s, ix) => s + ix.values.filter((v) => v !== null).length, 0);
-  const fixedQ = fixed.q ?? {};
+  const shapeNatural = (u: number[], r: number, K: number) => {
+    const out: Pick<SurplusParams, 'p' | 'A' | 'c' | 'a'> = {};
+    if (opts.model === 'pella-tomlinson') out.p = opts.shape ?? 1;
+    for (const s of shapes) out[s.name] = s.toNatural(free(s.label, u), r, K);
+    return out;
+  };
   const decode = (u: number[]) => {
     const K = fixed.K ?? free('K', u);
     const d0 = fixed.d0 ?? free('d0', u);
-    const p = opts.model === 'pella-tomlinson' ? (estimateShape ? free('p', u) : opts.shape!) : 1;
-    const r = fixed.r ?? (fixed.msy !== undefined ? fixed.msy / (K * referencePoints(opts.model, { r: 1, K: 1, p }).msy) : free('r', u));
-    return { r, K, d0, p };
+    // MSY scales as r·K times a function of the scale-free shape, so r = MSY / MSY(r = 1, K = 1)
+    const r = fixed.r ?? (fixed.msy !== undefined ? fixed.msy / (K * referencePoints(opts.model, { r: 1, K: 1, ...shapeNatural(u, 1, 1) }).msy) : free('r', u));
+    return { r, K, d0, ...shapeNatural(u, r, K) };
   };
   const path = (u: number[]) => {
     const p = decode(u);
@@ -84,7 +111,14 @@ export function surplusProblem(series: StockSeries, opts: SurplusFitOptions): Su
     }
     return total + penalty(u);
   };
-  return { model: opts.model, bounds, catches, filledYears, nObs, decode, path, nll, penalty, fixedQ };
+  return { model: opts.model, bounds, shapes, catches, filledYears, nObs, decode, path, nll, penalty, fixedQ };
+}
+
+/** Biomass scale from a survey with known catchability (index / q), for a series without removals. */
+function pinnedScale(series: StockSeries, fixedQ: Record<string, number>): number {
+  const ix = series.indices.find((i) => fixedQ[i.name] !== undefined)!;
+  const values = ix.values.filter((v): v is number => v !== null);
+  return Math.max(...values) / fixedQ[ix.name]! / 10;
 }
 
 /** Grid of start points on the free scale, best first. */
@@ -92,15 +126,18 @@ function gridStarts(problem: SurplusProblem, count: number): number[][] {
   const scale = Math.max(...problem.catches, 1e-9);
   const points: { u: number[]; f: number }[] = [];
   const seen = new Set<string>();
+  const shapeGrid = problem.shapes.reduce<Record<string, number>[]>((acc, s) => acc.flatMap((a) => s.starts.map((v) => ({ ...a, [s.label]: v }))), [{}]);
   for (const r of [0.08, 0.2, 0.45, 1.0]) {
     for (const k of [3, 6, 12, 25, 60]) {
       for (const d of [0.5, 0.95]) {
-        const natural: Record<string, number> = { r, K: k * scale, d0: d, p: 1 };
-        const u = problem.bounds.map((b) => toFree(b, natural[b.name]!));
-        const key = u.join(',');
-        if (seen.has(key)) continue;
-        seen.add(key);
-        points.push({ u, f: problem.nll(u) });
+        for (const sh of shapeGrid) {
+          const natural: Record<string, number> = { r, K: k * scale, d0: d, ...sh };
+          const u = problem.bounds.map((b) => toFree(b, natural[b.name]!));
+          const key = u.join(',');
+          if (seen.has(key)) continue;
+          seen.add(key);
+          points.push({ u, f: problem.nll(u) });
+        }
       }
     }
   }
@@ -134,6 +171,11 @@ export function fitSurplusRaw(series: StockSeries, opts: SurplusFitOptions): Raw
   runs.sort((a, b) => a.fx - b.fx);
   const polish = minimise(f, runs[0]!.x);
   const best = polish.fx <= runs[0]!.fx ? polish : runs[0]!;
+  if (!opts.initial && opts.fixed?.K === undefined && Object.keys(problem.fixedQ).length === 0) {
+    const { biomass } = problem.path(best.x);
+    const maxRate = Math.max(...problem.catches.map((c, t) => c / Math.max(biomass[t]!, 1e-300)));
+    if (!(maxRate >= NEGLIGIBLE_HARVEST_RATE)) throw new FitInputError('NO_REMOVALS', NO_REMOVALS);
+  }
   return {
     problem, u: best.x, nll: best.fx,
     iterations: runs.reduce((s, r) => s + r.iterations, 0) + polish.iterations,

@@ -1,66 +1,42 @@
 /**
- * Surplus-production models dB/dt = g(B) − C(t), their reference points, and the biomass path
- * under annual catches (constant rate within each year), integrated with odex.
+ * Surplus-production models dB/dt = g(B) − removal, their reference points, and the biomass path
+ * under annual removals: a catch taken at a constant rate within each year, or a fishing mortality F
+ * (removal F·B). The models themselves live one per module, listed in `registry.ts`.
  */
 import { logisticHarvest } from './logistic-harvest';
 import { integrate } from '../numerics/ode';
+import { rk4Scalar } from '../numerics/rk4';
+import { productionModel, type SurplusModelName } from './registry';
+import { maximumOf, unfishedEquilibrium } from './equilibria';
+import type { ReferencePoints, SurplusParams } from './production-model';
 
-export type SurplusModelName = 'schaefer' | 'pella-tomlinson' | 'fox';
+export type { SurplusModelName } from './registry';
+export type { ReferencePoints, SurplusParams } from './production-model';
 
-export interface SurplusParams {
-  r: number;
-  K: number;
-  /** Pella-Tomlinson shape p (1 = Schaefer); ignored by the other models. */
-  p?: number;
-}
+/** How a harvest is expressed: a constant catch per year, or a fishing mortality rate F. */
+export type HarvestControl = 'catch' | 'F';
 
-export interface ReferencePoints {
-  msy: number;
-  bMsy: number;
-  fMsy: number;
-}
-
-/** Production g(B). Schaefer rB(1 − B/K); Pella-Tomlinson (r/p)B(1 − (B/K)^p); Fox rB·ln(K/B). */
-export function production(model: SurplusModelName, { r, K, p = 1 }: SurplusParams, B: number): number {
-  if (B <= 0) return 0;
-  switch (model) {
-    case 'schaefer':
-      return r * B * (1 - B / K);
-    case 'pella-tomlinson':
-      return (r / p) * B * (1 - Math.pow(B / K, p));
-    case 'fox':
-      return r * B * Math.log(K / B);
-  }
+/** Production g(B) of the named model. */
+export function production(model: SurplusModelName, params: SurplusParams, B: number): number {
+  return productionModel(model).g(params, B);
 }
 
 /** dg/dB, the linearisation used for stability and return rates. */
-export function productionSlope(model: SurplusModelName, { r, K, p = 1 }: SurplusParams, B: number): number {
-  const b = Math.max(B, 1e-300);
-  switch (model) {
-    case 'schaefer':
-      return r * (1 - (2 * b) / K);
-    case 'pella-tomlinson':
-      return (r / p) * (1 - (1 + p) * Math.pow(b / K, p));
-    case 'fox':
-      return r * (Math.log(K / b) - 1);
-  }
+export function productionSlope(model: SurplusModelName, params: SurplusParams, B: number): number {
+  return productionModel(model).dg(params, B);
 }
 
 /**
- * MSY, B_MSY and F_MSY = MSY/B_MSY. Schaefer (1954): rK/4, K/2, r/2. Pella & Tomlinson (1969), in
- * the (r/p) form: B_MSY = K(1+p)^(−1/p), MSY = rK(1+p)^(−(1+p)/p), F_MSY = r/(1+p). Fox (1970): rK/e, K/e, r.
+ * MSY, B_MSY and F_MSY = MSY/B_MSY: in closed form where published (Schaefer, Pella-Tomlinson, Fox),
+ * otherwise the largest value of g on (0, unfished equilibrium], found numerically.
  */
-export function referencePoints(model: SurplusModelName, { r, K, p = 1 }: SurplusParams): ReferencePoints {
-  switch (model) {
-    case 'schaefer':
-      return { msy: (r * K) / 4, bMsy: K / 2, fMsy: r / 2 };
-    case 'pella-tomlinson': {
-      const bMsy = K * Math.pow(1 + p, -1 / p);
-      return { msy: r * K * Math.pow(1 + p, -(1 + p) / p), bMsy, fMsy: r / (1 + p) };
-    }
-    case 'fox':
-      return { msy: (r * K) / Math.E, bMsy: K / Math.E, fMsy: r };
-  }
+export function referencePoints(model: SurplusModelName, params: SurplusParams): ReferencePoints {
+  const m = productionModel(model);
+  if (m.reference) return m.reference(params);
+  const top = unfishedEquilibrium(m, params);
+  if (!(top > 0)) return { msy: 0, bMsy: 0, fMsy: 0 };
+  const best = maximumOf((B) => m.g(params, B), (B) => m.dg(params, B), 0, top);
+  return { msy: best.value, bMsy: best.at, fMsy: best.value / best.at };
 }
 
 export interface BiomassPath {
@@ -73,38 +49,51 @@ export interface BiomassPath {
 export interface PathOptions {
   /** odex tolerance (default 1e-9). */
   tol?: number;
-  /** Integrate the Schaefer model with odex too, instead of its exact solution. */
+  /** Integrate with odex whatever the model's own stepper. */
   forceOdex?: boolean;
+  /** Removals are catches (default) or fishing mortality rates. */
+  control?: HarvestControl;
 }
 
+const RK4_STEPS = 24;
+
 /**
- * One year of dB/dt = g(B) − C. Schaefer uses the exact solution of the same ODE (why: fits and
- * bootstraps evaluate hundreds of thousands of years; the specs hold it to the odex path at 1e-8);
- * the other models are integrated with odex.
+ * One year of dB/dt = g(B) − C (or g(B) − F·B). Schaefer under a catch uses the exact solution of
+ * the same ODE (why: fits and bootstraps evaluate hundreds of thousands of years; the specs hold it
+ * to the odex path at 1e-8); depensation models use fixed-step RK4 (held to odex in the specs);
+ * the others are integrated with odex.
  */
 function stepYear(model: SurplusModelName, params: SurplusParams, B: number, C: number, opts: PathOptions): { B: number; collapsed: boolean } {
-  if (model === 'schaefer' && !opts.forceOdex) {
+  const m = productionModel(model);
+  const fishing = opts.control === 'F';
+  if (m.stepper === 'logistic' && !fishing && !opts.forceOdex) {
     const step = logisticHarvest(params.r, params.K, C, B, 1);
     return { B: step.N, collapsed: step.collapseTime !== null };
   }
-  const res = integrate((_t, y) => [production(model, params, y[0]!) - C], 0, [B], 1, { tol: opts.tol ?? 1e-9, stopAtZero: true });
+  const rhs = fishing ? (b: number) => m.g(params, b) - C * b : (b: number) => m.g(params, b) - C;
+  if (m.stepper === 'rk4' && !opts.forceOdex) {
+    const s = rk4Scalar(rhs, B, 1, RK4_STEPS);
+    return { B: s.y, collapsed: s.collapsed };
+  }
+  const res = integrate((_t, y) => [rhs(y[0]!)], 0, [B], 1, { tol: opts.tol ?? 1e-9, stopAtZero: true });
   return { B: res.collapsed ? 0 : res.y[0]!, collapsed: res.collapsed };
 }
 
 /**
- * Biomass at the start of each year from B(0) = B0, with catches[i] removed at a constant rate
- * during year i. A path that reaches zero stays at zero (collapse), never negative or NaN.
+ * Biomass at the start of each year from B(0) = B0, with removals[i] (a catch, or F when
+ * control is 'F') taken during year i. A path that reaches zero stays at zero (collapse), never
+ * negative or NaN.
  */
-export function biomassPath(model: SurplusModelName, params: SurplusParams, B0: number, catches: number[], opts: PathOptions = {}): BiomassPath {
+export function biomassPath(model: SurplusModelName, params: SurplusParams, B0: number, removals: number[], opts: PathOptions = {}): BiomassPath {
   const biomass = [B0];
   let B = B0;
   let collapseYear: number | null = null;
-  for (let i = 0; i < catches.length; i++) {
+  for (let i = 0; i < removals.length; i++) {
     if (collapseYear !== null) {
       biomass.push(0);
       continue;
     }
-    const step = stepYear(model, params, B, catches[i]!, opts);
+    const step = stepYear(model, params, B, removals[i]!, opts);
     B = step.B;
     if (step.collapsed) collapseYear = i;
     biomass.push(B);

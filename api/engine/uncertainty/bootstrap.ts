@@ -6,7 +6,9 @@
 import { fitSurplusRaw, type SurplusFitOptions } from '../surplus/fit-surplus';
 import type { SurplusFitSummary } from '../fit/fit-summary';
 import { createRng } from '../numerics/random';
-import { referencePoints } from '../surplus/surplus';
+import { referencePoints, type SurplusParams } from '../surplus/surplus';
+import { analyseEquilibria } from '../surplus/equilibria';
+import { productionModel } from '../surplus/registry';
 import type { StockSeries } from '../data/series';
 
 export interface Replicate {
@@ -17,7 +19,11 @@ export interface Replicate {
   msy: number;
   bMsy: number;
   fMsy: number;
-  /** Fold harvest of the replicate (= its MSY for these concave production models). */
+  /** Allee threshold and predation parameters of the replicate, for the depensation models. */
+  A?: number;
+  c?: number;
+  a?: number;
+  /** Fold harvest of the replicate: the catch at which its upper stable state disappears (MSY for concave production). */
   hStar: number;
   /** Biomass at the end of the series. */
   bEnd: number;
@@ -59,11 +65,19 @@ export function runBootstrap(req: BootstrapRequest, onProgress?: (done: number) 
     const ref = referencePoints(raw.problem.model, p);
     const path = raw.problem.path(raw.u);
     out.push({
-      r: p.r, K: p.K, p: p.p ?? 1, d0: p.d0, ...ref, hStar: ref.msy,
+      r: p.r, K: p.K, p: p.p ?? 1, d0: p.d0, ...shapeOf(p), ...ref, hStar: analyseEquilibria(productionModel(raw.problem.model), p, 'catch').collapse?.at ?? 0,
       bEnd: path.biomass[path.biomass.length - 1]!, converged: !raw.hitIterationLimit,
     });
     if (onProgress && (i % 10 === 9 || i === req.replicates - 1)) onProgress(i + 1);
   }
+  return out;
+}
+
+function shapeOf(p: SurplusParams): Pick<Replicate, 'A' | 'c' | 'a'> {
+  const out: Pick<Replicate, 'A' | 'c' | 'a'> = {};
+  if (p.A !== undefined) out.A = p.A;
+  if (p.c !== undefined) out.c = p.c;
+  if (p.a !== undefined) out.a = p.a;
   return out;
 }
 
