@@ -24,7 +24,7 @@ export function datasetController(datasets: DatasetService) {
     },
     check: async (req: Request, res: Response) => {
       idParam(req.params.stockId, 'stockId');
-      res.json(datasets.check(csvOf(req)));
+      res.json(await datasets.check(csvOf(req)));
     },
     create: async (req: Request, res: Response) => {
       const body = req.body as { csv: string; note: string };

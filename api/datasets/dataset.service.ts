@@ -1,32 +1,19 @@
 /** Dataset versions: checked in full before anything is stored; every version kept, never overwritten. */
-import { parse } from 'csv-parse/sync';
 import type { Sequelize } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
-import { parseStockCsv } from '../engine/data/csv';
 import { HttpError, NotFoundError } from '../http/http-error';
 import { Stock } from '../stocks/stock.model';
 import { userNames } from '../users/user-names';
+import { csvChecker } from './csv-checker';
 import { Dataset } from './dataset.model';
 import type { CsvCheck, DatasetView } from './dataset.schemas';
-
-/** Raw cells for the preview table (best effort: empty when the text is not CSV at all). */
-function rawTable(csv: string): { header: string[]; rows: string[][] } {
-  try {
-    const all = parse(csv, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true, relax_quotes: true }) as string[][];
-    return { header: all[0] ?? [], rows: all.slice(1) };
-  } catch {
-    return { header: [], rows: [] };
-  }
-}
 
 export class DatasetService {
   constructor(private readonly sequelize: Sequelize) {}
 
-  /** Parses a CSV without storing it. */
-  check(csv: string): CsvCheck {
-    const table = rawTable(csv);
-    const r = parseStockCsv(csv);
-    return r.ok ? { ok: true, kind: r.kind, series: r.series, ...table } : { ok: false, errors: r.errors, ...table };
+  /** Parses a CSV without storing it (in the checker's worker thread). */
+  check(csv: string): Promise<CsvCheck> {
+    return csvChecker.check(csv);
   }
 
   async list(stockId: number): Promise<DatasetView[]> {
@@ -40,13 +27,13 @@ export class DatasetService {
     const d = await Dataset.findByPk(id);
     if (!d) throw new NotFoundError('Dataset');
     const names = await userNames([d.createdBy]);
-    return { dataset: d.toView(names.get(d.createdBy) ?? null), check: this.check(d.csvText), csv: d.csvText };
+    return { dataset: d.toView(names.get(d.createdBy) ?? null), check: await csvChecker.check(d.csvText, { lenientNumbers: true }), csv: d.csvText };
   }
 
   /** Stores a clean file as the stock's next version, with its audit entry, in one transaction. */
   async create(actorId: number, stockId: number, csv: string, note: string): Promise<DatasetView> {
     const stock = await this.stock(stockId);
-    const parsed = parseStockCsv(csv);
+    const parsed = await csvChecker.check(csv);
     if (!parsed.ok) {
       throw new HttpError(422, 'DATASET_ROWS_INVALID', `The file has ${parsed.errors.length} problem(s); nothing was saved.`, undefined, { problems: parsed.errors });
     }

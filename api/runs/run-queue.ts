@@ -72,7 +72,7 @@ export class RunQueue {
     const label = `run ${id}`;
     const run = await whileDatabaseAway(() => Run.findByPk(id), { label });
     const dataset = run ? await whileDatabaseAway(() => Dataset.findByPk(run.datasetId), { label }) : null;
-    const parsed = dataset ? parseStockCsv(dataset.csvText) : null;
+    const parsed = dataset ? parseStockCsv(dataset.csvText, { lenientNumbers: true }) : null;
     if (!run || !parsed?.ok) {
       await this.finish(id, { status: 'failed', error: 'The run or its dataset could not be read.' });
       return this.next();
