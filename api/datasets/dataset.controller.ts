@@ -1,5 +1,6 @@
 import type { Request, Response } from 'express';
 import { ValidationError } from '../http/http-error';
+import { pageParams } from '../http/paging';
 import { idParam } from '../http/validate';
 import { MAX_CSV_BYTES } from './dataset.schemas';
 import type { DatasetService } from './dataset.service';
@@ -20,7 +21,7 @@ function csvOf(req: Request): string {
 export function datasetController(datasets: DatasetService) {
   return {
     list: async (req: Request, res: Response) => {
-      res.json({ datasets: await datasets.list(idParam(req.params.stockId, 'stockId')) });
+      res.json(await datasets.list(idParam(req.params.stockId, 'stockId'), pageParams(req.query)));
     },
     check: async (req: Request, res: Response) => {
       idParam(req.params.stockId, 'stockId');

@@ -2,6 +2,7 @@
 import type { Sequelize } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
 import { HttpError, NotFoundError } from '../http/http-error';
+import type { Page, PageRequest } from '../http/paging';
 import { Stock } from '../stocks/stock.model';
 import { userNames } from '../users/user-names';
 import { csvChecker } from './csv-checker';
@@ -16,11 +17,15 @@ export class DatasetService {
     return csvChecker.check(csv);
   }
 
-  async list(stockId: number): Promise<DatasetView[]> {
+  /** One page of a stock's versions, newest first, without their CSV text. */
+  async list(stockId: number, page: PageRequest = { limit: 50, offset: 0 }): Promise<{ datasets: DatasetView[]; page: Page }> {
     await this.stock(stockId);
-    const rows = await Dataset.findAll({ where: { stockId }, order: [['version', 'DESC']] });
+    const [rows, total] = await Promise.all([
+      Dataset.findAll({ where: { stockId }, order: [['version', 'DESC']], limit: page.limit, offset: page.offset, attributes: { exclude: ['csvText'] } }),
+      Dataset.count({ where: { stockId } }),
+    ]);
     const names = await userNames(rows.map((r) => r.createdBy));
-    return rows.map((r) => r.toView(names.get(r.createdBy) ?? null));
+    return { datasets: rows.map((r) => r.toView(names.get(r.createdBy) ?? null)), page: { ...page, total } };
   }
 
   async get(id: number): Promise<{ dataset: DatasetView; check: CsvCheck; csv: string }> {

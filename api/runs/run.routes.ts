@@ -1,6 +1,7 @@
 import { Router, type Request, type Response } from 'express';
 import type { Sequelize } from 'sequelize';
 import { requireRole } from '../http/auth';
+import { pageParams } from '../http/paging';
 import { idParam, validateBody } from '../http/validate';
 import type { RunQueue } from './run-queue';
 import { startRunSchema } from './run.schemas';
@@ -10,7 +11,7 @@ function controller(runs: RunService) {
   return {
     start: async (req: Request, res: Response) => { res.status(202).json({ run: await runs.start(req.user!.id, req.body) }); },
     get: async (req: Request, res: Response) => { res.json(await runs.get(idParam(req.params.id))); },
-    list: async (req: Request, res: Response) => { res.json({ runs: await runs.listForStock(idParam(req.params.stockId, 'stockId')) }); },
+    list: async (req: Request, res: Response) => { res.json(await runs.listForStock(idParam(req.params.stockId, 'stockId'), pageParams(req.query))); },
     cancel: async (req: Request, res: Response) => { res.json({ run: await runs.cancel(req.user!.id, idParam(req.params.id)) }); },
   };
 }
