@@ -4,6 +4,8 @@ import { dirname, join } from 'node:path';
 import { ticks } from 'd3';
 import PDFDocument from 'pdfkit';
 import type { FoldPoint } from '../engine/surplus/fold';
+import type { ReserveDesignFigures } from '../proposals/reserve-design';
+import { reserveMapPdf } from './reserve-map-pdf';
 
 const require = createRequire(import.meta.url);
 const FONTS = join(dirname(require.resolve('@fontsource/source-sans-3/package.json')), 'files');
@@ -36,6 +38,8 @@ export interface AdvisoryPdfData {
   fold: { table: FoldPoint[]; hStar: number; bFold: number; band: { p5: number; p95: number } };
   catches: number[];
   projection: { startYear: number; median: number[]; lower: number[]; upper: number[]; limitRef: number };
+  /** The reserve design the board approved with the limit, if the proposal carried one. */
+  reserveDesign?: ReserveDesignFigures;
 }
 
 const INK = '#0d3b47', SEA = '#1f6f7f', BRINK = '#e08a1e', DANGER = '#b3261e', MUTED = '#5a6b70', BAND = '#cfe6ea';
@@ -169,6 +173,7 @@ export function renderAdvisoryPdf(d: AdvisoryPdfData): Promise<Buffer> {
   doc.font('semibold').fontSize(10).fillColor(INK).text(`Projected biomass under the approved limit (median and 5–95%)`, 100, 60);
   projection(doc, d, 100, 80, 440, 170);
   doc.y = 300;
+  if (d.reserveDesign) doc.y = reserveMapPdf(doc, d.reserveDesign, d.unit, 48, 300, 499) + 8;
   doc.font('semibold').fontSize(11).fillColor(INK).text('Caution', 48);
   doc.font('regular').fontSize(10).fillColor(INK).text(CAUTION, { width: 499 });
   doc.moveDown(0.6);

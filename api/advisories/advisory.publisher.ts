@@ -68,6 +68,7 @@ export class AdvisoryPublisher {
       fold: { table: results.fold.table, hStar: results.fold.hStar, bFold: results.fold.bFold, band: { p5: results.bootstrap!.hStar.p5, p95: results.bootstrap!.hStar.p95 } },
       catches: results.fit.catches,
       projection: { startYear: results.fit.years[results.fit.years.length - 1]! + 1, median: proj.median, lower: proj.lower, upper: proj.upper, limitRef: o.limitFraction * results.fit.reference.bMsy },
+      ...(proposal.figures.reserveDesign ? { reserveDesign: proposal.figures.reserveDesign } : {}),
     });
     const sha256 = createHash('sha256').update(pdf).digest('hex');
     const title = `${stock.name}: ${n0(limit)} ${stock.unit} per year${supersedes ? ' (corrected)' : ''}`;

@@ -52,7 +52,7 @@ export class DatasetService {
       const s = parsed.series;
       const d = await Dataset.create({
         stockId, version, note, kind: parsed.kind, csvText: csv, firstYear: s.years[0]!, lastYear: s.years[s.years.length - 1]!,
-        indexNames: s.indices.map((i) => i.name), createdBy: actorId,
+        indexNames: s.stockRecruit ? ['spawners', 'recruits'] : s.indices.map((i) => i.name), createdBy: actorId,
       }, { transaction: t });
       await recordAudit({ actorId, action: 'dataset.create', entityType: 'dataset', entityId: d.id, after: { stockId, version, note, years: s.years.length } }, t);
       return d.toView();

@@ -1,10 +1,15 @@
 /** Contract of the proposals API: shared with the client through `import type`. */
 import { z } from 'zod';
+import type { ReserveDesignFigures } from './reserve-design';
+
+/** Which design of which reserve-study run a proposal carries (optional). */
+export const reserveDesignRefSchema = z.object({ runId: z.number().int().positive(), index: z.number().int().min(0).max(5) }).strict();
 
 export const createProposalSchema = z.object({
   runId: z.number().int().positive(),
   quota: z.number().positive('the quota must be above zero').max(1e9),
   rationale: z.string().trim().min(20, 'give the reasoning in at least 20 characters').max(5000),
+  reserveDesign: reserveDesignRefSchema.optional(),
 }).strict();
 
 export const updateProposalSchema = z.object({
@@ -42,6 +47,8 @@ export interface ProposalFigures {
   candidates: CandidateFigures[];
   /** Catch the run's rule proposed (fold risk and ramp rule). */
   engineProposal: number;
+  /** The reserve design chosen with the quota, when the proposal carries one. */
+  reserveDesign?: ReserveDesignFigures;
 }
 
 export interface ProposalView {

@@ -12,6 +12,7 @@ import { Stock } from '../stocks/stock.model';
 import { User } from '../users/user.model';
 import { Proposal } from './proposal.model';
 import { listItems } from '../board/proposal-standing';
+import { reserveDesignFigures } from './reserve-design';
 import type { CandidateFigures, CreateProposalBody, ProposalFigures, ProposalListItem, ProposalView, UpdateProposalBody } from './proposal.schemas';
 
 async function surplusResults(runId: number): Promise<{ run: Run; results: SurplusRunResults }> {
@@ -55,10 +56,12 @@ export function figuresFor(run: Run, results: SurplusRunResults, quota: number, 
 export class ProposalService {
   constructor(private readonly sequelize: Sequelize, private readonly mail: MailSender | null = null) {}
 
-  async create(actorId: number, body: CreateProposalBody, revisesId: number | null = null): Promise<ProposalView> {
+  async create(actorId: number, body: CreateProposalBody, revisesId: number | null = null, keepDesign?: ProposalFigures['reserveDesign']): Promise<ProposalView> {
     const { run, results } = await surplusResults(body.runId);
     const stock = await Stock.findByPk(run.stockId);
     const figures = figuresFor(run, results, body.quota, stock!.unit);
+    if (keepDesign) figures.reserveDesign = keepDesign;
+    else if (body.reserveDesign) figures.reserveDesign = await reserveDesignFigures(run.stockId, body.reserveDesign);
     return this.sequelize.transaction(async (t) => {
       const p = await Proposal.create({
         stockId: run.stockId, runId: run.id, revisesId, status: 'draft', quota: body.quota, rationale: body.rationale,
@@ -76,7 +79,8 @@ export class ProposalService {
       const quota = body.quota ?? p.quota;
       if (body.quota !== undefined) {
         const { run, results } = await surplusResults(p.runId);
-        p.figures = figuresFor(run, results, quota, p.figures.unit);
+        const design = p.figures.reserveDesign;
+        p.figures = { ...figuresFor(run, results, quota, p.figures.unit), ...(design ? { reserveDesign: design } : {}) };
       }
       await p.update({ quota, rationale: body.rationale ?? p.rationale, figures: p.figures }, { transaction: t });
       await recordAudit({ actorId, action: 'proposal.update', entityType: 'proposal', entityId: id, before, after: { quota: p.quota, rationale: p.rationale } }, t);
@@ -110,7 +114,8 @@ export class ProposalService {
   async revise(actorId: number, id: number): Promise<ProposalView> {
     const p = await Proposal.findByPk(id);
     if (!p) throw new NotFoundError('Proposal');
-    return this.create(actorId, { runId: p.runId, quota: p.quota, rationale: p.rationale }, p.id);
+    const design = p.figures.reserveDesign;
+    return this.create(actorId, { runId: p.runId, quota: p.quota, rationale: p.rationale }, p.id, design);
   }
 
   async get(id: number): Promise<ProposalView> {

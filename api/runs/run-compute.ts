@@ -8,6 +8,9 @@ import type { LinkedModelName } from '../engine/linked/fit-predator-prey';
 import { pairStudy } from '../engine/linked/pair-study';
 import type { StockSeries } from '../engine/data/series';
 import type { SurplusModelName } from '../engine/surplus/surplus';
+import { assessDiscrete } from '../engine/discrete/assess-discrete';
+import { spatialStudy } from '../engine/spatial/assess-spatial';
+import { parseMaskCsv } from '../engine/spatial/mask-csv';
 import type { PredatorPreyRunResults, RunOptions, RunResults, SurplusRunResults } from './run.schemas';
 
 export type Progress = (fraction: number, stage: string) => void;
@@ -62,8 +65,27 @@ async function predatorPreyRun(series: StockSeries, model: LinkedModelName, o: R
   };
 }
 
+function spatialRun(o: RunOptions, progress: Progress): RunResults {
+  const sp = o.spatial!;
+  const designs = sp.designs.map((d) => {
+    if (d.maskCsv === undefined) return { name: d.name, reserves: d.reserves ?? [] };
+    const m = parseMaskCsv(d.maskCsv);
+    if (!m.ok) throw new Error(`the mask of design "${d.name}" is not valid (line ${m.errors[0]!.line}: ${m.errors[0]!.problem})`);
+    return { name: d.name, mask: m.mask };
+  });
+  return spatialStudy({
+    growth: sp.growth, params: { r: sp.r, K: sp.K, D: sp.D, ...(sp.A !== undefined ? { A: sp.A } : {}) }, fishing: sp.fishing,
+    habitat: sp.habitat.kind === 'coast' ? { kind: 'coast', length: sp.habitat.length, cells: sp.habitat.cells } : { kind: 'grid', cellKm: sp.habitat.cellKm },
+    designs, onProgress: progress,
+  });
+}
+
 /** Runs the model a run asks for. */
 export async function computeRun(series: StockSeries, model: string, options: RunOptions, progress: Progress): Promise<RunResults> {
+  if (model === 'reaction-diffusion') return spatialRun(options, progress);
+  if (model === 'ricker' || model === 'beverton-holt') {
+    return assessDiscrete(series, { model, bootstrap: options.bootstrap, seed: options.seed, risk: options.risk, onProgress: progress });
+  }
   if (model === 'rosenzweig-macarthur' || model === 'lotka-volterra') return predatorPreyRun(series, model, { ...options, conversion: options.conversion ?? 0.25 }, progress);
   return surplusRun(series, model as SurplusModelName, options, progress);
 }

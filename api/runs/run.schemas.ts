@@ -12,9 +12,39 @@ import type { LinkedAssessment } from '../engine/linked/linked-assessment';
 import type { CatchPlane } from '../engine/linked/catch-plane';
 import type { LinkedReplicate } from '../engine/linked/bootstrap-linked';
 import type { PairStudy } from '../engine/linked/pair-study';
+import type { DiscreteAssessment } from '../engine/discrete/assess-discrete';
+import type { SpatialStudy } from '../engine/spatial/assess-spatial';
 
 export const SURPLUS_MODELS = ['schaefer', 'pella-tomlinson', 'fox'] as const;
 export const PREDATOR_PREY_MODELS = ['rosenzweig-macarthur', 'lotka-volterra'] as const;
+export const DISCRETE_RUN_MODELS = ['ricker', 'beverton-holt'] as const;
+export const SPATIAL_RUN_MODELS = ['reaction-diffusion'] as const;
+
+const interval = z.tuple([z.number().min(0), z.number().min(0)]).refine((v) => v[1] > v[0], { message: 'a reserve ends after it starts' });
+
+/** A reserve study: growth, movement and fishing outside reserves, on a coast or a masked grid, for up to six designs. */
+export const spatialOptionsSchema = z.object({
+  growth: z.enum(['logistic', 'allee']).default('logistic'),
+  r: z.number().gt(0).max(20),
+  K: z.number().gt(0).max(1e9),
+  D: z.number().gt(0).max(1e6),
+  A: z.number().gt(0).optional(),
+  fishing: z.number().min(0).max(50),
+  habitat: z.discriminatedUnion('kind', [
+    z.object({ kind: z.literal('coast'), length: z.number().gt(0).max(10_000), cells: z.number().int().min(20).max(1000).default(200) }).strict(),
+    z.object({ kind: z.literal('grid'), cellKm: z.number().gt(0).max(1000) }).strict(),
+  ]),
+  designs: z.array(z.object({
+    name: z.string().trim().min(1).max(60),
+    reserves: z.array(interval).max(20).optional(),
+    maskCsv: z.string().max(20_000).optional(),
+  }).strict()).min(1).max(6),
+}).strict()
+  .refine((v) => v.growth !== 'allee' || (v.A !== undefined && v.A < v.K), { path: ['A'], message: 'the Allee threshold A must be given and below K' })
+  .refine((v) => v.designs.every((d) => (v.habitat.kind === 'coast' ? d.maskCsv === undefined : d.maskCsv !== undefined && d.reserves === undefined)), { path: ['designs'], message: 'coast designs list reserves in km; grid designs give a mask' })
+  .refine((v) => v.habitat.kind !== 'coast' || v.designs.every((d) => (d.reserves ?? []).every(([, b]) => b <= (v.habitat as { length: number }).length)), { path: ['designs'], message: 'every reserve must lie on the coast' });
+
+export type SpatialRunOptions = z.infer<typeof spatialOptionsSchema>;
 
 const prior = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('lognormal'), median: z.number().positive().max(1e9), sdLog: z.number().gt(0).max(5) }).strict(),
@@ -35,7 +65,7 @@ export const priorsSchema = z.object({ r: prior.optional(), d0: prior.optional()
 
 export const startRunSchema = z.object({
   datasetId: z.number().int().positive(),
-  model: z.enum([...SURPLUS_MODELS, ...PREDATOR_PREY_MODELS]),
+  model: z.enum([...SURPLUS_MODELS, ...PREDATOR_PREY_MODELS, ...DISCRETE_RUN_MODELS, ...SPATIAL_RUN_MODELS]),
   shape: z.number().min(0.05).max(5).optional(),
   /** Replicates; default 500 for single stocks and 100 for linked ones (each linked refit integrates two species). */
   bootstrap: z.number().int().min(0).max(5000).optional(),
@@ -57,7 +87,9 @@ export const startRunSchema = z.object({
   jitter: z.number().int().min(0).max(100).default(20),
   fixed: fixedSchema.optional(),
   priors: priorsSchema.optional(),
+  spatial: spatialOptionsSchema.optional(),
 }).strict().refine((v) => v.trigger > v.limit, { path: ['trigger'], message: 'the trigger must be above the limit' })
+  .refine((v) => (v.model === 'reaction-diffusion') === (v.spatial !== undefined), { path: ['spatial'], message: 'a reaction-diffusion run needs its reserve study, and only it has one' })
   .transform((v) => ({ ...v, bootstrap: v.bootstrap ?? ((PREDATOR_PREY_MODELS as readonly string[]).includes(v.model) ? 100 : 500) }));
 
 export type StartRunBody = z.infer<typeof startRunSchema>;
@@ -100,7 +132,10 @@ export interface PredatorPreyRunResults {
   current?: PairStudy;
 }
 
-export type RunResults = SurplusRunResults | PredatorPreyRunResults;
+export type DiscreteRunResults = DiscreteAssessment;
+export type SpatialRunResults = SpatialStudy;
+
+export type RunResults = SurplusRunResults | PredatorPreyRunResults | DiscreteRunResults | SpatialRunResults;
 
 export interface RunView {
   id: number;

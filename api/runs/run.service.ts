@@ -13,7 +13,9 @@ const SUMMARY_ATTRIBUTES: [string, string][] = [
   ['sum_b_over_bmsy', 'bOverBmsy'], ['sum_f_over_fmsy', 'fOverFmsy'], ['sum_proposed_quota', 'proposedQuota'],
 ];
 import type { RunQueue } from './run-queue';
-import { PREDATOR_PREY_MODELS, type RunResults, type RunSummary, type RunView, type StartRunBody } from './run.schemas';
+import { parseStockCsv } from '../engine/data/csv';
+import { parseMaskCsv } from '../engine/spatial/mask-csv';
+import { DISCRETE_RUN_MODELS, PREDATOR_PREY_MODELS, type RunResults, type RunSummary, type RunView, type StartRunBody } from './run.schemas';
 
 export class RunService {
   constructor(private readonly sequelize: Sequelize, private readonly queue: RunQueue) {}
@@ -35,6 +37,7 @@ export class RunService {
     if (unknownQ.length) {
       throw new HttpError(422, 'UNKNOWN_SURVEY', `The dataset has no survey named ${unknownQ.join(', ')} (it has ${dataset.indexNames.join(', ')}).`, { 'fixed.q': [`unknown survey ${unknownQ.join(', ')}`] });
     }
+    checkModelFitsData(body, dataset.csvText);
     const { datasetId, model, ...options } = body;
     const run = await this.sequelize.transaction(async (t) => {
       const r = await Run.create({
@@ -91,5 +94,30 @@ export class RunService {
     await this.sequelize.transaction((t) => recordAudit({ actorId, action: 'run.cancel', entityType: 'run', entityId: id }, t));
     await run.reload();
     return run.toView();
+  }
+}
+
+/** A stock-recruitment model needs spawners and recruits or a biomass column; a reserve study needs valid masks. */
+function checkModelFitsData(body: StartRunBody, csvText: string): void {
+  const discrete = (DISCRETE_RUN_MODELS as readonly string[]).includes(body.model);
+  if (body.model === 'reaction-diffusion') {
+    const fields: Record<string, string[]> = {};
+    body.spatial!.designs.forEach((d, i) => {
+      if (d.maskCsv === undefined) return;
+      const m = parseMaskCsv(d.maskCsv);
+      if (!m.ok) fields[`spatial.designs.${i}.maskCsv`] = m.errors.map((e) => `line ${e.line}${e.column ? `, ${e.column}` : ''}: ${e.problem} ${e.fix}`);
+    });
+    if (Object.keys(fields).length) throw new HttpError(422, 'MASK_INVALID', 'A reserve design\'s mask has problems; nothing was started.', fields);
+    return;
+  }
+  const parsed = parseStockCsv(csvText);
+  if (!parsed.ok || parsed.kind !== 'single') return;
+  const sr = parsed.series.stockRecruit !== undefined;
+  const biomass = parsed.series.indices.some((ix) => ix.name === 'biomass');
+  if (discrete && !sr && !biomass) {
+    throw new HttpError(422, 'MODEL_DATA_MISMATCH', 'A stock-recruitment model needs a dataset with spawners and recruits, or a biomass column with the catch.');
+  }
+  if (!discrete && sr) {
+    throw new HttpError(422, 'MODEL_DATA_MISMATCH', 'This dataset holds spawners and recruits: choose Ricker or Beverton-Holt.');
   }
 }

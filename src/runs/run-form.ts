@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal, viewChild } from '@angular/core';
 import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,9 +11,11 @@ import type { DatasetView } from '../../api/datasets/dataset.schemas';
 import type { RunView } from '../../api/runs/run.schemas';
 import type { StockView } from '../../api/stocks/stock.schemas';
 import { ApiError } from '../core/errors/api-error';
+import { ReserveStudyForm } from './reserve-study-form';
 import { RunApi } from './run-api';
 
-const SINGLE = [['schaefer', 'Schaefer'], ['pella-tomlinson', 'Pella-Tomlinson'], ['fox', 'Fox']] as const;
+const SINGLE = [['schaefer', 'Schaefer'], ['pella-tomlinson', 'Pella-Tomlinson'], ['fox', 'Fox'], ['ricker', 'Ricker (spawners and recruits)'],
+  ['beverton-holt', 'Beverton-Holt (spawners and recruits)'], ['reaction-diffusion', 'Reaction-diffusion: reserve study']] as const;
 const LINKED = [['rosenzweig-macarthur', 'Rosenzweig-MacArthur'], ['lotka-volterra', 'Lotka-Volterra (logistic prey)']] as const;
 
 /** The ramp rule's trigger must lie above its limit; checked on the trigger so the message sits under it. */
@@ -27,7 +29,7 @@ const fixedOrEstimate = (v: string): number | 'estimate' => (v.trim() === 'estim
 /** Options of a new run, validated here and again by the server. */
 @Component({
   selector: 'bm-run-form',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [ReserveStudyForm, ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
   templateUrl: './run-form.html',
   styles: `.bm-form { display: grid; grid-template-columns: repeat(auto-fill, minmax(190px, 1fr)); gap: 4px 14px; }
     .bm-actions { display: flex; gap: 12px; align-items: center; } .bm-err { color: var(--bm-danger); }`,
@@ -38,6 +40,7 @@ export class RunForm {
   readonly datasets = input.required<DatasetView[]>();
   readonly started = output<RunView>();
   private readonly api = inject(RunApi);
+  private readonly study = viewChild(ReserveStudyForm);
   protected readonly models = computed(() => (this.stock().kind === 'predator-prey' ? LINKED : SINGLE));
   protected readonly linked = computed(() => this.stock().kind === 'predator-prey');
 
@@ -81,6 +84,17 @@ export class RunForm {
     if (this.form.invalid) return;
     const v = this.form.getRawValue();
     this.failure.set(null);
+    if (v.model === 'reaction-diffusion') {
+      const spatial = this.study()?.value();
+      if (!spatial) return;
+      try {
+        this.started.emit(await firstValueFrom(this.api.start({ datasetId: v.datasetId, model: 'reaction-diffusion', bootstrap: 0, spatial })));
+      } catch (err) {
+        if (err instanceof ApiError) this.serverFields.set(err.fields);
+        this.failure.set(err instanceof Error ? err.message : 'The run could not be started.');
+      }
+      return;
+    }
     try {
       const run = await firstValueFrom(this.api.start({
         datasetId: v.datasetId, model: v.model as never, bootstrap: v.bootstrap, seed: v.seed, risk: v.risk, limit: v.limit,

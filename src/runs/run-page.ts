@@ -6,18 +6,20 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { catchError, firstValueFrom, of, switchMap } from 'rxjs';
-import type { PredatorPreyRunResults, SurplusRunResults } from '../../api/runs/run.schemas';
+import type { DiscreteRunResults, PredatorPreyRunResults, SpatialRunResults, SurplusRunResults } from '../../api/runs/run.schemas';
 import { AuthStore } from '../core/auth/auth-store';
 import { Notifier } from '../core/errors/notifier';
 import { ModelNamePipe } from '../shared/sig.pipe';
 import { StockApi } from '../stocks/stock-api';
+import { DiscreteResults } from './discrete-results';
 import { PredatorPreyResults } from './predator-prey-results';
+import { SpatialResults } from './spatial-results';
 import { RunApi, type RunDetail } from './run-api';
 import { SurplusResults } from './surplus-results';
 
 @Component({
   selector: 'bm-run-page',
-  imports: [RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatProgressBarModule, MatButtonModule, MatIconModule, SurplusResults, PredatorPreyResults],
+  imports: [RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatProgressBarModule, MatButtonModule, MatIconModule, SurplusResults, PredatorPreyResults, DiscreteResults, SpatialResults],
   templateUrl: './run-page.html',
   styles: `.bm-head { display: flex; align-items: flex-end; gap: 8px 16px; flex-wrap: wrap; } .bm-grow { flex: 1; }
     .bm-head > div { min-width: 0; } .bm-head button { white-space: normal; height: auto; min-height: 40px; max-width: 100%; }
@@ -45,6 +47,8 @@ export class RunPage {
   ));
   protected readonly surplus = computed(() => { const r = this.detail()?.results; return r?.kind === 'surplus' ? (r as SurplusRunResults) : null; });
   protected readonly linked = computed(() => { const r = this.detail()?.results; return r?.kind === 'predator-prey' ? (r as PredatorPreyRunResults) : null; });
+  protected readonly discrete = computed(() => { const r = this.detail()?.results; return r?.kind === 'discrete' ? (r as DiscreteRunResults) : null; });
+  protected readonly spatial = computed(() => { const r = this.detail()?.results; return r?.kind === 'spatial' ? (r as SpatialRunResults) : null; });
 
   protected async cancel(): Promise<void> {
     this.cancelling.set(true);

@@ -13,6 +13,7 @@ export function sig(v: number | null | undefined, digits = 4): string {
 const MODEL_NAMES: Record<string, string> = {
   schaefer: 'Schaefer', 'pella-tomlinson': 'Pella-Tomlinson', fox: 'Fox',
   'rosenzweig-macarthur': 'Rosenzweig-MacArthur', 'lotka-volterra': 'Lotka-Volterra',
+  ricker: 'Ricker', 'beverton-holt': 'Beverton-Holt', 'reaction-diffusion': 'Reaction-diffusion (reserve study)',
 };
 
 /** The published name of a model code. */

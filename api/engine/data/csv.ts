@@ -6,6 +6,7 @@
  */
 import { parse } from 'csv-parse/sync';
 import type { StockSeries } from './series';
+import { isStockRecruitHeader, parseStockRecruitRows } from './stock-recruit-csv';
 
 export interface CsvProblem {
   line: number;
@@ -16,6 +17,8 @@ export interface CsvProblem {
 }
 
 export type CsvResult = { ok: true; series: StockSeries; kind: 'single' | 'predator-prey' } | { ok: false; errors: CsvProblem[] };
+
+/** A single stock's file holds either catch and survey indices or spawners and recruits (stock-recruit-csv.ts). */
 
 export const MIN_YEARS = 10;
 export const MAX_ROWS = 500;
@@ -89,6 +92,10 @@ export function parseStockCsv(text: string, options: ParseOptions = {}): CsvResu
   if (rows.length - 1 > MAX_ROWS) return fail([{ line: MAX_ROWS + 2, column: null, value: null, problem: `More than ${MAX_ROWS} years.`, fix: 'Split the file or check that it is an annual series.' }]);
   const header = rows[0]!.map((h) => h.toLowerCase());
   if (header.length > MAX_COLUMNS) return fail([{ line: 1, column: null, value: null, problem: `The header has more than ${MAX_COLUMNS} columns.`, fix: 'Keep year, catch, the survey indices and their CVs; drop other columns.' }]);
+  if (isStockRecruitHeader(header)) {
+    const sr = parseStockRecruitRows(header, rows.slice(1));
+    return sr.ok ? { ok: true, series: sr.series, kind: 'single' } : fail(sr.errors);
+  }
   const headerErrors = checkHeader(header);
   if (headerErrors.length) return fail(headerErrors);
   const linked = header.includes('prey_catch');

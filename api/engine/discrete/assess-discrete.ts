@@ -88,13 +88,13 @@ export function assessDiscrete(series: StockSeries, o: DiscreteAssessOptions): D
   o.onProgress?.(0.75, 'Following the cascade against the harvest rate');
   const uTop = Math.min(0.99, fit.reference.uCollapse);
   const harvestCascade = cascade(model, fit.params, { control: 'harvest', from: 0, to: uTop, steps: o.steps ?? 200 });
+  const rate = reps.length ? quantile(reps.map((r) => r.uMsy), o.risk) : fit.reference.uMsy;
   o.onProgress?.(0.88, 'Following the cascade against productivity');
   const prod = fit.params[model.productivity]!;
   const spec = model.params.find((s) => s.name === model.productivity)!;
-  const productivityCascade = cascade(model, fit.params, { control: 'productivity', from: Math.max(spec.lower, 0.25 * prod), to: Math.min(spec.upper, 2 * prod), steps: o.steps ?? 200 });
-  const rate = reps.length ? quantile(reps.map((r) => r.uMsy), o.risk) : fit.reference.uMsy;
+  const productivityCascade = cascade(model, fit.params, { control: 'productivity', from: Math.max(spec.lower, 0.25 * prod), to: Math.min(spec.upper, 2 * prod), steps: o.steps ?? 200, harvest: rate });
   const here = regimeAt(model, fit.params, rate);
-  const shareNotStable = reps.length ? reps.filter((r) => regimeAt(model, r.params, rate).regime !== 'stable').length / reps.length : null;
+  const shareNotStable = reps.length ? reps.filter((r) => ['cycle', 'chaos'].includes(regimeAt(model, r.params, rate).regime)).length / reps.length : null;
   const proposal: ProposedRate = { rate, band: bootstrap?.uMsy ?? null, regime: here.regime, period: here.period, shareNotStable };
   const warnings = regimeWarnings(harvestCascade, rate, proposal.band);
   if (shareNotStable !== null && shareNotStable > 0 && here.regime === 'stable') warnings.push(`In ${(100 * shareNotStable).toFixed(0)}% of bootstrap replicates the stock cycles or fluctuates at the proposed rate.`);
