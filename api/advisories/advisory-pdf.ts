@@ -26,6 +26,10 @@ export interface AdvisoryPdfData {
   supersedes: { docId: string; reason: string } | null;
   figures: {
     marginAbs: number; marginFrac: number; marginLowerAbs: number; marginLowerFrac: number;
+    /** Where the stock stands against the unstable threshold at the limit (absent for advisories of older runs). */
+    stateMargin?: { current: number; threshold: number | null; distance: number | null; fraction: number | null; returnRate: number; pCross: number; years: number };
+    /** The limit is a fishing mortality F rather than a catch. */
+    control?: 'catch' | 'F';
     hStar: { median: number; lower5: number; upper95: number }; msy: number; bOverBmsy: number; fOverFmsy: number;
     pPassFold: number; pBelowLimit: number; projectionYears: number;
   };
@@ -117,6 +121,19 @@ function decisionRecord(doc: Doc, d: AdvisoryPdfData): void {
   doc.text(`Superseded advisory ${c.previous.docId}: ${n0(c.previous.limit)} ${d.unit} per year, approved on ${day(c.previous.decidedAt)} by board vote (${votesText(c.previous.votes)}); those votes were on that limit, not on this one.`);
 }
 
+/** The state margin rows: current biomass against the unstable threshold at the limit. */
+function stateRows(d: AdvisoryPdfData): [string, string][] {
+  const s = d.figures.stateMargin;
+  if (!s) return [];
+  const rows: [string, string][] = [['Harvest expressed as', d.figures.control === 'F' ? 'fishing mortality F (per year)' : `catch (${d.unit} per year)`]];
+  if (s.threshold === null) return [...rows, ['State margin', 'none: the limit is past the fold, there is no stable state at it']];
+  return [...rows,
+    ['State margin: current biomass above the threshold', `${n0(s.distance!)} ${d.unit} (${pct(s.fraction!)}; threshold ${n0(s.threshold)} ${d.unit}, now ${n0(s.current)})`],
+    ['Return rate at the limit', `${s.returnRate.toFixed(3)} per year`],
+    [`Probability of crossing the threshold within ${s.years} years`, pct(s.pCross)],
+  ];
+}
+
 /** The advisory as PDF bytes. */
 export function renderAdvisoryPdf(d: AdvisoryPdfData): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'A4', margin: 48, info: { Title: `Harvest advisory ${d.docId}`, Author: 'Brinkmark', Subject: d.stockName }, pdfVersion: '1.7' });
@@ -155,6 +172,7 @@ export function renderAdvisoryPdf(d: AdvisoryPdfData): Promise<Buffer> {
     ['Status: B/B_MSY, F/F_MSY', `${d.figures.bOverBmsy.toFixed(2)}, ${d.figures.fOverFmsy.toFixed(2)}`],
     ['Probability of passing the fold at the limit', pct(d.figures.pPassFold)],
     [`Probability of falling below the limit point within ${d.figures.projectionYears} years`, pct(d.figures.pBelowLimit)],
+    ...stateRows(d),
   ];
   let ty = doc.y;
   for (const [k, v] of rows) {

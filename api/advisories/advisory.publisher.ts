@@ -48,7 +48,6 @@ export class AdvisoryPublisher {
     // one projection serves both the figures and the chart of the PDF
     const proj = quotaProjection(run, results, limit);
     const f = figuresFor(run, results, limit, stock.unit, proj);
-    const o = run.options;
     const year = new Date().getUTCFullYear();
     const seq = (await Advisory.count({ transaction: t })) + 1;
     const docId = `BM-${year}-${stock.code.toUpperCase()}-${String(seq).padStart(4, '0')}`;
@@ -63,11 +62,12 @@ export class AdvisoryPublisher {
       figures: {
         marginAbs: f.marginToFold.absolute, marginFrac: f.marginToFold.fraction, marginLowerAbs: f.marginToFoldLower.absolute, marginLowerFrac: f.marginToFoldLower.fraction,
         hStar: f.foldHarvest, msy: f.msy, bOverBmsy: f.bOverBmsy, fOverFmsy: f.fOverFmsy, pPassFold: f.atQuota.pPassFold, pBelowLimit: f.atQuota.pBelowLimit, projectionYears: f.projectionYears,
+        ...(f.stateMargin ? { stateMargin: f.stateMargin } : {}), control: f.control ?? 'catch',
       },
       decision: { reason: decision.reason, votes: decision.votes, chairName: chair.name, decidedAt: decision.createdAt },
       fold: { table: results.fold.table, hStar: results.fold.hStar, bFold: results.fold.bFold, band: { p5: results.bootstrap!.hStar.p5, p95: results.bootstrap!.hStar.p95 } },
       catches: results.fit.catches,
-      projection: { startYear: results.fit.years[results.fit.years.length - 1]! + 1, median: proj.median, lower: proj.lower, upper: proj.upper, limitRef: o.limitFraction * results.fit.reference.bMsy },
+      projection: { startYear: results.fit.years[results.fit.years.length - 1]! + 1, median: proj.median, lower: proj.lower, upper: proj.upper, limitRef: f.limitFraction * results.fit.reference.bMsy },
       ...(proposal.figures.reserveDesign ? { reserveDesign: proposal.figures.reserveDesign } : {}),
     });
     const sha256 = createHash('sha256').update(pdf).digest('hex');

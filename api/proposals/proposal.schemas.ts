@@ -1,5 +1,7 @@
 /** Contract of the proposals API: shared with the client through `import type`. */
 import { z } from 'zod';
+import type { StateMargin } from '../engine/assessment';
+import type { RebuildRow } from '../engine/projection/rebuild';
 import type { ReserveDesignFigures } from './reserve-design';
 
 /** Which design of which reserve-study run a proposal carries (optional). */
@@ -28,6 +30,8 @@ export interface CandidateFigures {
   lowerEnd: number;
   upperEnd: number;
   returnRate: number;
+  /** Probability of falling below the unstable threshold at this level within the projection (absent in older proposals). */
+  pCrossThreshold?: number;
 }
 
 /** The figures frozen with a proposal, all computed by the engine from its run. */
@@ -42,7 +46,14 @@ export interface ProposalFigures {
   fOverFmsy: number;
   risk: number;
   projectionYears: number;
+  /** The run's one limit reference point as B_lim/B_MSY. */
   limitFraction: number;
+  /** How the quota is expressed: a catch per year or a fishing mortality F (absent in older proposals: a catch). */
+  control?: 'catch' | 'F';
+  /** Where the stock stands against the unstable threshold at the quota (absent in older proposals). */
+  stateMargin?: StateMargin;
+  /** Years to rebuild to B_MSY under candidate levels, from the run (absent in older proposals). */
+  rebuild?: RebuildRow[];
   atQuota: CandidateFigures;
   candidates: CandidateFigures[];
   /** Catch the run's rule proposed (fold risk and ramp rule). */

@@ -1,7 +1,8 @@
 /** Quota proposals: figures computed from the run by the engine; submitted proposals are frozen. */
 import type { Sequelize, Transaction } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
-import { project, type ProjectionResult } from '../engine/projection/projection';
+import type { ProjectionResult } from '../engine/projection/projection';
+import { projectLevel, stateMarginAt } from '../engine/assessment';
 import type { SurplusModelName } from '../engine/surplus/surplus';
 import { ConflictError, HttpError, NotFoundError } from '../http/http-error';
 import { Run } from '../runs/run.model';
@@ -25,16 +26,17 @@ async function surplusResults(runId: number): Promise<{ run: Run; results: Surpl
   return { run, results };
 }
 
-/** The run's stochastic projection under a constant catch, from its bootstrap draws. */
+/** The run's projection at a level: the same function, replicates and seed as the run's own table. */
 export function quotaProjection(run: Run, results: SurplusRunResults, catchLevel: number): ProjectionResult {
   const o = run.options;
-  return project({ model: run.model as SurplusModelName, replicates: results.bootstrap!.draws, catchLevel, years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed + 101 });
+  return projectLevel(run.model as SurplusModelName, results.bootstrap!.draws, catchLevel, { years: o.years, processSd: o.processSd, limitFraction: o.limit, seed: results.quota?.seed ?? o.seed, control: o.control ?? 'catch' });
 }
 
 function endFigures(p: ProjectionResult): CandidateFigures {
   return {
     catchLevel: p.catchLevel, pPassFold: p.pPassFold, pBelowLimit: p.pBelowLimit, returnRate: p.returnRate,
     medianEnd: p.median[p.median.length - 1]!, lowerEnd: p.lower[p.lower.length - 1]!, upperEnd: p.upper[p.upper.length - 1]!,
+    ...(p.pCrossThreshold === undefined ? {} : { pCrossThreshold: p.pCrossThreshold }),
   };
 }
 
@@ -47,7 +49,10 @@ export function figuresFor(run: Run, results: SurplusRunResults, quota: number, 
     marginToFold: { absolute: median - quota, fraction: (median - quota) / median },
     marginToFoldLower: { absolute: lower5 - quota, fraction: (lower5 - quota) / lower5 },
     msy: results.fit.reference.msy, bOverBmsy: results.fit.status.bOverBmsy, fOverFmsy: results.fit.status.fOverFmsy,
-    risk: o.risk, projectionYears: o.years, limitFraction: o.limitFraction, atQuota: endFigures(atQuota),
+    risk: o.risk, projectionYears: o.years, limitFraction: o.limit, control: o.control ?? 'catch',
+    stateMargin: stateMarginAt(run.model as SurplusModelName, results.fit, o.control ?? 'catch', atQuota),
+    ...(results.quota!.rebuild ? { rebuild: results.quota!.rebuild } : {}),
+    atQuota: endFigures(atQuota),
     candidates: results.quota!.candidates.map(endFigures),
     engineProposal: results.quota!.proposal.proposed,
   };

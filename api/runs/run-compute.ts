@@ -1,5 +1,6 @@
 /** What one run computes, from a series and its options, reporting progress: engine calls only, no I/O. */
-import { assessSurplus, bootstrapFit, quotaStudy } from '../engine/assessment';
+import { assessSurplus, bootstrapFit, quotaStudy, roundLevel } from '../engine/assessment';
+import { collapsePoints } from '../engine/projection/quota';
 import { quantile } from '../engine/uncertainty/bootstrap';
 import { earlyWarning } from '../engine/diagnostics/early-warning';
 import { diagnoseSurplus } from '../engine/diagnostics/diagnose';
@@ -17,7 +18,7 @@ export type Progress = (fraction: number, stage: string) => void;
 
 async function surplusRun(series: StockSeries, model: SurplusModelName, o: RunOptions, progress: Progress): Promise<SurplusRunResults> {
   progress(0.02, o.priors ? 'Fitting the model (penalised likelihood)' : 'Fitting the model');
-  const opts = { model, shape: model === 'pella-tomlinson' ? o.shape : undefined, fixed: o.fixed, priors: o.priors };
+  const opts = { model, shape: model === 'pella-tomlinson' ? o.shape : undefined, fixed: o.fixed, priors: o.priors, allowAboveK: o.allowAboveK ?? false };
   const { fit, fold } = assessSurplus(series, opts);
   progress(0.1, 'Fit done; continuing the equilibria to the fold');
   const resid = fit.indices[0]!.residuals.map((r, i) => [series.years[i]!, r] as const).filter((p): p is readonly [number, number] => p[1] !== null);
@@ -33,12 +34,14 @@ async function surplusRun(series: StockSeries, model: SurplusModelName, o: RunOp
     replicates: o.bootstrap, seed: o.seed, workers: 2,
     onProgress: (done, total) => progress(start + ((0.9 - start) * done) / total, `Bootstrap ${done} of ${total}`),
   });
-  progress(0.92, 'Projecting candidate quotas');
+  progress(0.92, 'Projecting candidate quotas and the rebuilding table');
   const h = reps.map((r) => r.hStar);
+  const control = o.control ?? 'catch';
+  const collapse5 = quantile(collapsePoints(reps, control).filter(Number.isFinite), 0.05);
   const quota = quotaStudy(model, fit, reps, {
-    risk: o.risk, rule: { limit: o.limit, trigger: o.trigger, fTargetOverFmsy: o.fTarget },
-    candidates: o.candidates.length ? o.candidates : [0.5, 0.75, 1, 1.1].map((f) => Math.round(f * quantile(h, 0.05))),
-    years: o.years, processSd: o.processSd, limitFraction: o.limitFraction, seed: o.seed,
+    risk: o.risk, rule: { limit: o.limit, trigger: o.trigger, fTargetOverFmsy: o.fTarget }, control,
+    candidates: o.candidates.length ? o.candidates : [0.5, 0.75, 1, 1.1].map((f) => roundLevel(f * collapse5, control)).filter((v) => Number.isFinite(v)),
+    years: o.years, processSd: o.processSd, limitFraction: o.limit, seed: o.seed,
   });
   return {
     kind: 'surplus', fit, fold, earlyWarning: ew, quota, diagnostics,

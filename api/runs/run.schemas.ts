@@ -15,7 +15,7 @@ import type { PairStudy } from '../engine/linked/pair-study';
 import type { DiscreteAssessment } from '../engine/discrete/assess-discrete';
 import type { SpatialStudy } from '../engine/spatial/assess-spatial';
 
-export const SURPLUS_MODELS = ['schaefer', 'pella-tomlinson', 'fox'] as const;
+export const SURPLUS_MODELS = ['schaefer', 'pella-tomlinson', 'fox', 'allee', 'predation'] as const;
 export const PREDATOR_PREY_MODELS = ['rosenzweig-macarthur', 'lotka-volterra'] as const;
 export const DISCRETE_RUN_MODELS = ['ricker', 'beverton-holt'] as const;
 export const SPATIAL_RUN_MODELS = ['reaction-diffusion'] as const;
@@ -71,12 +71,18 @@ export const startRunSchema = z.object({
   bootstrap: z.number().int().min(0).max(5000).optional(),
   seed: z.number().int().min(0).max(2_147_483_647).default(1),
   risk: z.number().gt(0).lt(0.5).default(0.05),
+  /** The one limit reference point, B_lim/B_MSY: the ramp rule's limit and the line every projection counts falls below. */
   limit: z.number().min(0).max(2).default(0.4),
+  /** How the proposal is expressed: a constant catch, or a fishing mortality F. */
+  control: z.enum(['catch', 'F']).default('catch'),
+  /** Allow the first year's biomass above K (B0/K up to 1.5), with a warning. */
+  allowAboveK: z.boolean().default(false),
   trigger: z.number().min(0).max(3).default(0.8),
   fTarget: z.number().gt(0).max(2).default(1),
   candidates: z.array(z.number().min(0)).max(12).default([]),
   years: z.number().int().min(1).max(50).default(10),
   processSd: z.number().min(0).max(1).default(0.1),
+  /** Linked stocks only: limit as a fraction of each species' equilibrium (single stocks use `limit`). */
   limitFraction: z.number().min(0.05).max(1).default(0.5),
   /** Predator-prey: conversion efficiency e, fixed at a value or estimated. */
   conversion: z.union([z.number().gt(0, 'above 0').max(1, 'at most 1'), z.literal('estimate')]).default(0.25),

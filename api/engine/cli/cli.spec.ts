@@ -87,4 +87,32 @@ describe('engine command line', () => {
     expect(out.horizonYears).toBeCloseTo(Math.log(out.tolerance / 0.05) / out.lyapunov[0], 8);
     expect(cli('horizon', '--model', 'food-chain', '--params', 'r=2,K=-1').stderr).toContain('K must be a positive number');
   });
+
+  // Closed forms: the Allee cubic's maximum from g'(B) = 0 (Lewis & Kareiva 1993), the logistic under F
+  // with its transcritical point at F = r and the catch fold at rK/4 (Schaefer 1954; Clark 1990).
+  it('fold --params lists every bifurcation of given parameters without data', () => {
+    const a = cli('fold', '--model', 'allee', '--params', 'r=0.5,K=1000,A=150');
+    expect(a.status).toBe(0);
+    const out = JSON.parse(a.stdout);
+    const Bm = (1150 + Math.sqrt(1150 ** 2 - 3 * 150 * 1000)) / 3;
+    const fold = out.bifurcations.find((b: { control: string }) => b.control === 'catch');
+    expect(fold.kind).toBe('fold');
+    expect(fold.at).toBeCloseTo(0.5 * Bm * (Bm / 150 - 1) * (1 - Bm / 1000), 8);
+    expect(fold.biomass).toBeCloseTo(Bm, 5);
+    const s = JSON.parse(cli('fold', '--model', 'schaefer', '--params', 'r=0.4,K=1000').stdout);
+    expect(s.bifurcations).toEqual([
+      { kind: 'fold', control: 'catch', at: jasmine.any(Number), biomass: jasmine.any(Number) },
+      { kind: 'transcritical', control: 'F', at: jasmine.any(Number), biomass: 0 },
+    ]);
+    expect(s.bifurcations[0].at).toBeCloseTo(100, 8);
+    expect(s.bifurcations[1].at).toBeCloseTo(0.4, 10);
+    expect(s.noFold.F).toBeTrue();
+  });
+
+  it('fold --params names a missing or unknown parameter and exits 2', () => {
+    const r = cli('fold', '--model', 'predation', '--params', 'r=0.5,K=10,c=1');
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain('missing a');
+    expect(cli('fold', '--model', 'fox', '--params', 'r=0.5,K=10,A=2').stderr).toContain('not "A"');
+  });
 });

@@ -1,9 +1,12 @@
 /**
  * Command line for scripted runs:
  *   npm run --silent cli -- fit   --model schaefer --input FILE.csv [--shape P] [--bootstrap N] [--seed S]
- *   npm run --silent cli -- fold  --model schaefer --input FILE.csv
+ *   npm run --silent cli -- fold  --model schaefer|pella-tomlinson|fox|allee|predation --input FILE.csv
+ *   npm run --silent cli -- fold  --model predation --params r=0.6,K=12,c=1,a=1   (no data: the diagram of given parameters)
+ *   npm run --silent cli -- rebuild --model schaefer --input FILE.csv [--replicates 500] [--candidates 0,500] [--control catch|F]
+ *        [--horizon 30] [--process-sd 0.1] [--seed S]
  *   npm run --silent cli -- quota --model schaefer --input FILE.csv [--risk 0.05] [--replicates 1000]
- *        [--limit 0.4] [--trigger 0.8] [--ftarget 1] [--candidates 1000,1500] [--years 10] [--process-sd 0.1]
+ *        [--limit 0.4] [--trigger 0.8] [--ftarget 1] [--candidates 1000,1500] [--years 10] [--process-sd 0.1] [--control catch|F]
  *   npm run --silent cli -- diagnose --model schaefer --input FILE.csv [--peel 5] [--jitter 20] [--seed S]
  *   npm run --silent cli -- cascade --model ricker --params r=2.8,K=1000 [--harvest FROM:TO:STEP]   (cascade-command.ts)
  *   npm run --silent cli -- reserve --params r=0.5,K=100,D=2 --coast 60 --reserve 20:40 [--fishing F]   (reserve-command.ts)
@@ -18,13 +21,14 @@ import { parseArgs } from 'node:util';
 import { assessSurplus, bootstrapFit, ENGINE_VERSION, quotaStudy } from '../assessment';
 import { parseStockCsv } from '../data/csv';
 import { diagnoseSurplus } from '../diagnostics/diagnose';
-import type { SurplusModelName } from '../surplus/surplus';
+import { SURPLUS_MODEL_NAMES, type SurplusModelName } from '../surplus/registry';
+import { foldFromParams, foldReport } from './surplus-command';
 import { UsageError } from './command-args';
 import { cascadeCommand } from './cascade-command';
 import { reserveCommand } from './reserve-command';
 import { linkedCommand, horizonCommand, LINKED_MODELS } from './cli-linked';
 
-const MODELS: SurplusModelName[] = ['schaefer', 'pella-tomlinson', 'fox'];
+const MODELS: SurplusModelName[] = SURPLUS_MODEL_NAMES;
 
 function num(v: string | undefined, name: string, def: number): number {
   if (v === undefined) return def;
@@ -38,7 +42,7 @@ async function main(argv: string[]): Promise<unknown> {
   if (command === 'cascade') return { engine: ENGINE_VERSION, ...cascadeCommand(rest) as object };
   if (command === 'reserve') return { engine: ENGINE_VERSION, ...reserveCommand(rest) as object };
   if (command === 'horizon') return horizonCommand(rest);
-  if (!command || !['fit', 'fold', 'quota', 'diagnose'].includes(command)) throw new UsageError('usage: cli fit|fold|quota|diagnose --model MODEL --input FILE.csv [options] | cli horizon ... | cli cascade ... | cli reserve ...');
+  if (!command || !['fit', 'fold', 'quota', 'diagnose', 'rebuild'].includes(command)) throw new UsageError('usage: cli fit|fold|quota|rebuild|diagnose --model MODEL --input FILE.csv [options] | cli fold --model MODEL --params r=...,K=... | cli horizon ... | cli cascade ... | cli reserve ...');
   const { values: o } = parseArgs({
     args: rest, strict: true,
     options: {
@@ -46,13 +50,21 @@ async function main(argv: string[]): Promise<unknown> {
       seed: { type: 'string' }, risk: { type: 'string' }, replicates: { type: 'string' }, limit: { type: 'string' },
       trigger: { type: 'string' }, ftarget: { type: 'string' }, candidates: { type: 'string' }, years: { type: 'string' },
       'process-sd': { type: 'string' }, workers: { type: 'string' }, peel: { type: 'string' }, jitter: { type: 'string' },
-      conversion: { type: 'string' }, saturation: { type: 'string' },
+      conversion: { type: 'string' }, saturation: { type: 'string' }, params: { type: 'string' }, control: { type: 'string' },
+      horizon: { type: 'string' }, 'allow-above-k': { type: 'boolean' },
     },
   });
   const model = o.model as SurplusModelName;
   const linkedModel = (LINKED_MODELS as readonly string[]).includes(o.model ?? '');
   if (!MODELS.includes(model) && !linkedModel) throw new UsageError(`--model must be one of ${[...MODELS, ...LINKED_MODELS].join(', ')}`);
-  if (!o.input) throw new UsageError('--input FILE.csv is required');
+  if (o.params !== undefined) {
+    if (command !== 'fold' || linkedModel) throw new UsageError('--params works with fold on a single-stock model');
+    if (o.input) throw new UsageError('give --params or --input, not both');
+    return { engine: ENGINE_VERSION, ...foldFromParams(model, o.params) };
+  }
+  if (o.control !== undefined && o.control !== 'catch' && o.control !== 'F') throw new UsageError('--control must be catch or F');
+  const control = (o.control ?? 'catch') as 'catch' | 'F';
+  if (!o.input) throw new UsageError('--input FILE.csv (or, for fold, --params) is required');
   let text: string;
   try { text = readFileSync(o.input, 'utf8'); } catch { throw new UsageError(`cannot read ${o.input}`); }
   const parsed = parseStockCsv(text);
@@ -62,9 +74,10 @@ async function main(argv: string[]): Promise<unknown> {
   }
   if (linkedModel) {
     if (command !== 'fit' && command !== 'fold') throw new UsageError(`${command} works on single stocks; for linked stocks use fit (with --bootstrap) and fold`);
-    return linkedCommand(command as 'fit' | 'fold', parsed.series, o, (v, name) => num(v, name, 0));
+    const { 'allow-above-k': _flag, ...textOptions } = o;
+    return linkedCommand(command as 'fit' | 'fold', parsed.series, textOptions, (v, name) => num(v, name, 0));
   }
-  const opts = { model, shape: o.shape === undefined ? undefined : num(o.shape, 'shape', 1) };
+  const opts = { model, shape: o.shape === undefined ? undefined : num(o.shape, 'shape', 1), allowAboveK: o['allow-above-k'] ?? false };
   const seed = num(o.seed, 'seed', 1);
   const { fit, fold } = assessSurplus(parsed.series, opts);
   if (command === 'diagnose') {
@@ -83,7 +96,7 @@ async function main(argv: string[]): Promise<unknown> {
       jitter: d.jitter && { starts: d.jitter.starts, reachingBest: d.jitter.reachingBest, bestNll: d.jitter.bestNll, fitNll: d.jitter.fitNll },
     };
   }
-  if (command === 'fold') return { engine: ENGINE_VERSION, model, hStar: fold.hStar, bFold: fold.bFold, table: fold.table };
+  if (command === 'fold') return { engine: ENGINE_VERSION, model, ...foldReport(fold) };
   const workers = o.workers === undefined ? undefined : num(o.workers, 'workers', 2);
   if (command === 'fit') {
     const n = num(o.bootstrap, 'bootstrap', 0);
@@ -95,13 +108,19 @@ async function main(argv: string[]): Promise<unknown> {
       bootstrap: reps ? quotaStudy(model, fit, reps, { risk: 0.05, rule: { limit: 0.4, trigger: 0.8, fTargetOverFmsy: 1 }, candidates: [], years: 1, processSd: 0, limitFraction: 0.5, seed }).intervals : null,
     };
   }
-  const reps = await bootstrapFit(parsed.series, opts, fit, { replicates: num(o.replicates, 'replicates', 1000), seed, workers });
+  const reps = await bootstrapFit(parsed.series, opts, fit, { replicates: num(o.replicates, 'replicates', command === 'rebuild' ? 500 : 1000), seed, workers });
   const candidates = (o.candidates ?? '').split(',').filter(Boolean).map((c) => num(c, 'candidates', 0));
+  const limit = num(o.limit, 'limit', 0.4);
+  const horizon = num(o.horizon, 'horizon', 30);
+  if (!(Number.isInteger(horizon) && horizon >= 1 && horizon <= 200)) throw new UsageError('--horizon must be a whole number of years from 1 to 200');
   const study = quotaStudy(model, fit, reps, {
     risk: num(o.risk, 'risk', 0.05),
-    rule: { limit: num(o.limit, 'limit', 0.4), trigger: num(o.trigger, 'trigger', 0.8), fTargetOverFmsy: num(o.ftarget, 'ftarget', 1) },
-    candidates, years: num(o.years, 'years', 10), processSd: num(o['process-sd'], 'process-sd', 0.1), limitFraction: 0.5, seed,
+    rule: { limit, trigger: num(o.trigger, 'trigger', 0.8), fTargetOverFmsy: num(o.ftarget, 'ftarget', 1) },
+    candidates, years: num(o.years, 'years', 10), processSd: num(o['process-sd'], 'process-sd', 0.1), limitFraction: limit, seed, control, rebuildYears: horizon,
   });
+  if (command === 'rebuild') {
+    return { engine: ENGINE_VERSION, model, control, bMsy: fit.reference.bMsy, current: fit.biomass[fit.biomass.length - 1], horizon, rebuild: study.rebuild };
+  }
   return { engine: ENGINE_VERSION, model, foldHarvest: fold.hStar, msy: fit.reference.msy, ...study };
 }
 

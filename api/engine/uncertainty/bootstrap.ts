@@ -25,6 +25,8 @@ export interface Replicate {
   a?: number;
   /** Fold harvest of the replicate: the catch at which its upper stable state disappears (MSY for concave production). */
   hStar: number;
+  /** Fishing mortality at which its upper stable state ends (fold or transcritical; absent when none, and in older runs). */
+  fStar?: number;
   /** Biomass at the end of the series. */
   bEnd: number;
   converged: boolean;
@@ -66,11 +68,17 @@ export function runBootstrap(req: BootstrapRequest, onProgress?: (done: number) 
     const path = raw.problem.path(raw.u);
     out.push({
       r: p.r, K: p.K, p: p.p ?? 1, d0: p.d0, ...shapeOf(p), ...ref, hStar: analyseEquilibria(productionModel(raw.problem.model), p, 'catch').collapse?.at ?? 0,
+      ...fStarOf(raw.problem.model, p),
       bEnd: path.biomass[path.biomass.length - 1]!, converged: !raw.hitIterationLimit,
     });
     if (onProgress && (i % 10 === 9 || i === req.replicates - 1)) onProgress(i + 1);
   }
   return out;
+}
+
+function fStarOf(model: string, p: SurplusParams): Pick<Replicate, 'fStar'> {
+  const at = analyseEquilibria(productionModel(model), p, 'F').collapse?.at;
+  return at === undefined ? {} : { fStar: at };
 }
 
 function shapeOf(p: SurplusParams): Pick<Replicate, 'A' | 'c' | 'a'> {
