@@ -16,7 +16,8 @@ function tooMany(_req: Request, res: Response): void {
 }
 
 export function authRoutes(config: Config, passport: PassportStatic, csrf: Csrf): Router {
-  const common = { windowMs: WINDOW_MS, skipSuccessfulRequests: true, standardHeaders: 'draft-8' as const, legacyHeaders: false, handler: tooMany };
+  // why: an X-Forwarded-For from an untrusted hop is ignored on purpose (TRUST_PROXY), not a misconfiguration
+  const common = { windowMs: WINDOW_MS, skipSuccessfulRequests: true, standardHeaders: 'draft-8' as const, legacyHeaders: false, handler: tooMany, validate: { xForwardedForHeader: false } };
   // failures per client address (the socket's, unless TRUST_PROXY names the proxy in front)
   const perAddress = rateLimit({ ...common, limit: config.SIGNIN_LIMIT_PER_15_MIN });
   // failures per account, whatever the address: rotating addresses does not buy more guesses

@@ -20,6 +20,37 @@ export function createStripe(config: Config): Stripe {
 
 type StripeSub = Stripe.Subscription & { current_period_end?: number };
 
+/** How far a webhook's stamp may be from now, either way (Stripe's default tolerance). */
+const WEBHOOK_TOLERANCE_S = 300;
+
+function webhookRefused(code: string, message: string, event: Stripe.Event): HttpError {
+  console.error(`stripe webhook ${event.id} (${event.type}) refused: ${message}`);
+  return new HttpError(400, code, message);
+}
+
+const isText = (v: unknown) => typeof v === 'string' && v.length > 0 && v.length < 256;
+const isSeconds = (v: unknown) => typeof v === 'number' && Number.isInteger(v) && v > 0 && v < 4102444800;
+
+/** What is wrong with an event's object for the types we apply, or null (other types are stored and ignored). */
+function malformed(event: Stripe.Event): string | null {
+  if (!isText(event.id) || !isText(event.type)) return 'no id or type';
+  const o = (event.data as unknown as { object?: Record<string, unknown> } | undefined)?.object;
+  if (!o || typeof o !== 'object') return 'no data.object';
+  switch (event.type) {
+    case 'checkout.session.completed':
+      return isText(o.id) && isText(o.subscription) ? null : 'a checkout session needs an id and a subscription id';
+    case 'customer.subscription.updated':
+    case 'customer.subscription.deleted':
+      return isText(o.id) && isText(o.status) ? null : 'a subscription needs an id and a status';
+    case 'invoice.paid':
+    case 'invoice.payment_failed':
+      return isText(o.id) && isText(o.subscription) && typeof o.amount_due === 'number' && isText(o.currency) && isSeconds(o.period_start) && isSeconds(o.period_end)
+        ? null : 'an invoice needs an id, a subscription, an amount, a currency and its period';
+    default:
+      return null;
+  }
+}
+
 function periodEnd(sub: StripeSub): Date | null {
   const t = sub.current_period_end ?? sub.items?.data?.[0]?.current_period_end;
   return t ? new Date(t * 1000) : null;
@@ -86,16 +117,29 @@ export class SubscriptionService {
     return { requested: true };
   }
 
-  /** Verifies, de-duplicates and applies one webhook event. */
+  /** Verifies, de-duplicates and applies one webhook event; bad or unknown content is a 400 with a log line, never a 500. */
   async webhook(raw: Buffer, signature: string | undefined): Promise<{ received: true; duplicate: boolean }> {
     let event: Stripe.Event;
     try {
-      event = this.stripe.webhooks.constructEvent(raw, signature ?? '', this.config.STRIPE_WEBHOOK_SECRET);
+      event = this.stripe.webhooks.constructEvent(raw, signature ?? '', this.config.STRIPE_WEBHOOK_SECRET, WEBHOOK_TOLERANCE_S);
     } catch {
       throw new HttpError(400, 'WEBHOOK_SIGNATURE_INVALID', 'The webhook signature does not verify; the event was ignored.');
     }
-    const fetched = event.type === 'checkout.session.completed'
-      ? await this.stripe.subscriptions.retrieve(String((event.data.object as Stripe.Checkout.Session).subscription)) as StripeSub : null;
+    // the SDK refuses stamps too old (a replay); a stamp from the future is refused here
+    const stamp = Number(/(?:^|,)t=(\d+)/.exec(signature ?? '')?.[1]);
+    if (!Number.isFinite(stamp) || stamp > Date.now() / 1000 + WEBHOOK_TOLERANCE_S) {
+      throw webhookRefused('WEBHOOK_TIMESTAMP_INVALID', `The webhook is stamped more than ${WEBHOOK_TOLERANCE_S / 60} minutes ahead; the event was ignored.`, event);
+    }
+    const problem = malformed(event);
+    if (problem) throw webhookRefused('WEBHOOK_EVENT_MALFORMED', `The webhook event is not usable: ${problem}.`, event);
+    let fetched: StripeSub | null = null;
+    if (event.type === 'checkout.session.completed') {
+      const id = String((event.data.object as Stripe.Checkout.Session).subscription);
+      fetched = await this.stripe.subscriptions.retrieve(id).then((x) => x as StripeSub, (err: { statusCode?: number; message?: string }) => {
+        if (err.statusCode && err.statusCode >= 400 && err.statusCode < 500) throw webhookRefused('WEBHOOK_OBJECT_UNKNOWN', `Stripe does not know subscription ${id}.`, event);
+        throw new HttpError(502, 'PAYMENT_PROVIDER_UNAVAILABLE', `The payment provider did not answer: ${err.message ?? 'no answer'}`);
+      });
+    }
     return this.sequelize.transaction(async (t) => {
       const [, created] = await StripeEvent.findOrCreate({ where: { id: event.id }, defaults: { id: event.id, type: event.type }, transaction: t, lock: t.LOCK.UPDATE });
       if (!created) return { received: true as const, duplicate: true };
@@ -109,14 +153,14 @@ export class SubscriptionService {
     if (event.type === 'checkout.session.completed') {
       const session = event.data.object as Stripe.Checkout.Session;
       const s = await Subscription.findOne({ where: { stripeCheckoutId: session.id }, transaction: t, lock: t.LOCK.UPDATE });
-      if (!s || !fetched) return;
+      if (!s || !fetched) throw webhookRefused('WEBHOOK_OBJECT_UNKNOWN', `No checkout ${session.id} is on record.`, event);
       const before = { status: s.status };
       await s.update({ stripeSubscriptionId: fetched.id, status: statusOf(fetched.status), currentPeriodEnd: periodEnd(fetched), cancelAtPeriodEnd: fetched.cancel_at_period_end }, { transaction: t });
       await audit(s, before);
     } else if (event.type === 'customer.subscription.updated' || event.type === 'customer.subscription.deleted') {
       const sub = event.data.object as StripeSub;
       const s = await Subscription.findOne({ where: { stripeSubscriptionId: sub.id }, transaction: t, lock: t.LOCK.UPDATE });
-      if (!s) return;
+      if (!s) throw webhookRefused('WEBHOOK_OBJECT_UNKNOWN', `No subscription ${sub.id} is on record.`, event);
       const before = { status: s.status, cancelAtPeriodEnd: s.cancelAtPeriodEnd };
       const deleted = event.type === 'customer.subscription.deleted';
       const status = deleted ? 'canceled' : statusOf(sub.status);
@@ -128,7 +172,7 @@ export class SubscriptionService {
     } else if (event.type === 'invoice.paid' || event.type === 'invoice.payment_failed') {
       const inv = event.data.object as Stripe.Invoice & { subscription?: string; period_start: number; period_end: number };
       const s = await Subscription.findOne({ where: { stripeSubscriptionId: String(inv.subscription) }, transaction: t, lock: t.LOCK.UPDATE });
-      if (!s) return;
+      if (!s) throw webhookRefused('WEBHOOK_OBJECT_UNKNOWN', `No subscription ${String(inv.subscription)} is on record for invoice ${inv.id}.`, event);
       await Invoice.upsert({ id: inv.id!, subscriptionId: s.id, amount: inv.amount_due, currency: inv.currency, status: inv.status ?? 'open', periodStart: new Date(inv.period_start * 1000), periodEnd: new Date(inv.period_end * 1000) }, { transaction: t });
       if (event.type === 'invoice.payment_failed') {
         const before = { status: s.status };
