@@ -18,7 +18,7 @@ export type Progress = (fraction: number, stage: string) => void;
 
 async function surplusRun(series: StockSeries, model: SurplusModelName, o: RunOptions, progress: Progress): Promise<SurplusRunResults> {
   progress(0.02, o.priors ? 'Fitting the model (penalised likelihood)' : 'Fitting the model');
-  const opts = { model, shape: model === 'pella-tomlinson' ? o.shape : undefined, fixed: o.fixed, priors: o.priors, allowAboveK: o.allowAboveK ?? false };
+  const opts = { model, shape: model === 'pella-tomlinson' ? o.shape : undefined, fixed: o.fixed, priors: o.priors, allowAboveK: o.allowAboveK ?? false, errors: o.errors ?? 'observation' };
   const { fit, fold } = assessSurplus(series, opts);
   progress(0.1, 'Fit done; continuing the equilibria to the fold');
   const resid = fit.indices[0]!.residuals.map((r, i) => [series.years[i]!, r] as const).filter((p): p is readonly [number, number] => p[1] !== null);

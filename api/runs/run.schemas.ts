@@ -77,6 +77,8 @@ export const startRunSchema = z.object({
   control: z.enum(['catch', 'F']).default('catch'),
   /** Allow the first year's biomass above K (B0/K up to 1.5), with a warning. */
   allowAboveK: z.boolean().default(false),
+  /** Single stocks: observation error only, or state-space (process and observation error); compare by AIC. */
+  errors: z.enum(['observation', 'state-space']).default('observation'),
   trigger: z.number().min(0).max(3).default(0.8),
   fTarget: z.number().gt(0).max(2).default(1),
   candidates: z.array(z.number().min(0)).max(12).default([]),

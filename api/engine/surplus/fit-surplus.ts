@@ -3,6 +3,7 @@
  * survey indices: lognormal errors, q and σ concentrated out, several Nelder-Mead starts.
  */
 import { concentratedIndexFit } from '../fit/likelihood';
+import { stateSpaceNll } from '../fit/state-space';
 import { priorPenalty, type FixedParams, type ParamPriors } from '../fit/constraints';
 import { minimise } from '../numerics/nelder-mead';
 import { biomassPath, referencePoints, type SurplusModelName, type SurplusParams } from './surplus';
@@ -27,6 +28,8 @@ export interface SurplusFitOptions {
   priors?: ParamPriors;
   /** Allow the first year's biomass above K (B0/K up to 1.5); the fit then warns when it is. */
   allowAboveK?: boolean;
+  /** Error model: observation error only (default), or state-space (process and observation error, Kalman filter on the first index). */
+  errors?: 'observation' | 'state-space';
 }
 
 /** A series that cannot be fitted as asked, with a message for the assessor. */
@@ -77,6 +80,13 @@ export function surplusProblem(series: StockSeries, opts: SurplusFitOptions): Su
     { name: 'd0', lo: 0.05, hi: opts.allowAboveK ? 1.5 : 1, log: false },
     ...shapes.map((s) => ({ name: s.label, lo: s.lo, hi: s.hi, log: s.log })),
   ];
+  const stateSpace = opts.errors === 'state-space';
+  const firstIx = series.indices[0]!;
+  const ixValues = firstIx.values.filter((v): v is number => v !== null);
+  if (stateSpace) {
+    const q0 = ixValues.reduce((a, v) => a + v, 0) / ixValues.length / (10 * scale);
+    all.push({ name: 'q', lo: q0 * 1e-4, hi: q0 * 1e4, log: true }, { name: 'σ_p', lo: 0.005, hi: 1, log: true }, { name: 'σ_obs', lo: 0.01, hi: 2, log: true });
+  }
   // why: with MSY held (profiles), r follows from K and the shape, so r is not a free parameter
   const bounds = all.filter((b) => !(b.name === 'r' && (fixed.r !== undefined || fixed.msy !== undefined)) && !(b.name === 'K' && fixed.K !== undefined) && !(b.name === 'd0' && fixed.d0 !== undefined));
   const at = (name: string) => bounds.findIndex((b) => b.name === name);
@@ -100,7 +110,17 @@ export function surplusProblem(series: StockSeries, opts: SurplusFitOptions): Su
     return biomassPath(opts.model, p, p.d0 * p.K, catches, { tol: opts.tol ?? 1e-8 });
   };
   const penalty = (u: number[]) => (opts.priors ? priorPenalty(opts.priors, decode(u)) : 0);
+  const ssNll = (u: number[]) => {
+    const p = decode(u);
+    const step = (B: number, C: number) => {
+      const r = biomassPath(opts.model, p, B, [C], { tol: opts.tol ?? 1e-8 });
+      return r.collapseYear !== null ? null : r.biomass[1]!;
+    };
+    const res = stateSpaceNll({ step, catches, index: firstIx.values, B0: p.d0 * p.K, q: free('q', u), sdProc: free('σ_p', u), sdObs: free('σ_obs', u) });
+    return Number.isFinite(res.nll) ? res.nll + penalty(u) : COLLAPSE_PENALTY;
+  };
   const nll = (u: number[]) => {
+    if (stateSpace) return ssNll(u);
     const { biomass, collapseYear } = path(u);
     if (collapseYear !== null) return COLLAPSE_PENALTY * (1 + (catches.length - collapseYear) / catches.length);
     let total = 0;
@@ -131,7 +151,9 @@ function gridStarts(problem: SurplusProblem, count: number): number[][] {
     for (const k of [3, 6, 12, 25, 60]) {
       for (const d of [0.5, 0.95]) {
         for (const sh of shapeGrid) {
-          const natural: Record<string, number> = { r, K: k * scale, d0: d, ...sh };
+          const natural: Record<string, number> = { r, K: k * scale, d0: d, ...sh, 'σ_p': 0.05, 'σ_obs': 0.2 };
+          const qB = problem.bounds.find((b) => b.name === 'q');
+          if (qB) natural.q = Math.sqrt(qB.lo * qB.hi) * (10 / k);
           const u = problem.bounds.map((b) => toFree(b, natural[b.name]!));
           const key = u.join(',');
           if (seen.has(key)) continue;
