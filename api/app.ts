@@ -70,7 +70,7 @@ export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<t
     { base: '/api/stocks/:stockId/proposals', router: stockProposalRoutes(sequelize) },
     { base: '/api/datasets', router: datasetRoutes(sequelize) },
     { base: '/api/runs', router: runRoutes(sequelize, queue) },
-    { base: '/api/proposals', router: proposalRoutes(sequelize, mail) },
+    { base: '/api/proposals', router: proposalRoutes(sequelize, mail, config.PUBLIC_URL) },
     { base: '/api/proposals/:proposalId/board', router: proposalBoardRoutes(board) },
     { base: '/api/board', router: boardRoutes(board) },
     { base: '/api/advisories', router: advisoryRoutes(advisories) },

@@ -1,5 +1,6 @@
 /** Starts the HTTP server on the configured loopback port. */
 import { createApp } from './app';
+import { queueDigests } from './mail/digest';
 import { loadConfig } from './config';
 import { createSequelize, schemaMigrator } from './db';
 import { whileDatabaseAway } from './health/retry';
@@ -18,11 +19,17 @@ const interrupted = await RunQueue.recoverInterrupted();
 if (interrupted) console.log(`${interrupted} run(s) interrupted by the last stop were marked failed.`);
 const app = createApp({ config, sequelize });
 app.locals.mail.start();
+// weekly digests for licensees who chose them: checked at start and every hour
+const digests = () => queueDigests(sequelize, config.PUBLIC_URL).then((n) => { if (n) app.locals.mail.kick(); }, (err: unknown) => console.error('queueing digests failed:', err));
+void digests();
+const digestTimer = setInterval(() => void digests(), 3_600_000);
+digestTimer.unref();
 const server = app.listen(config.PORT, config.HOST, () => {
   console.log(`Brinkmark is serving on http://${config.HOST}:${config.PORT}`);
 });
 
 function shutdown(): void {
+  clearInterval(digestTimer);
   app.locals.mail.stop();
   server.close(() => {
     app.locals.sessionStore.stopExpiringSessions();

@@ -68,6 +68,7 @@ export const routes: Routes = [
         loadComponent: () => import('./admin/user-admin').then((m) => m.UserAdmin),
         title: 'People and roles · Brinkmark',
       },
+      { path: 'not-allowed', loadComponent: () => import('./home/not-allowed').then((m) => m.NotAllowed), title: 'Not open to your role · Brinkmark' },
       { path: '**', loadComponent: () => import('./home/not-found').then((m) => m.NotFound), title: 'Not found · Brinkmark' },
     ],
   },

@@ -97,7 +97,9 @@ export class AdvisoryPublisher {
     }
     await recordAudit({ actorId, action: supersedes ? 'advisory.supersede' : 'advisory.publish', entityType: 'advisory', entityId: advisory.id, after: { docId, sha256, limit, supersedes: supersedes?.advisory.docId ?? null } }, t);
     const subscribers = await Subscription.findAll({ where: { regionId: region.id, ...Subscription.givingAccess() }, transaction: t });
-    const users = await User.findAll({ where: { id: [...new Set(subscribers.map((s) => s.userId))], active: true }, transaction: t });
+    // each licensee's choice: every advisory, corrections only, or the weekly digest (queued elsewhere)
+    const wanted = supersedes ? ['every', 'corrections'] : ['every'];
+    const users = await User.findAll({ where: { id: [...new Set(subscribers.map((s) => s.userId))], active: true, mailPreference: wanted }, transaction: t });
     for (const u of users) {
       await OutboxMail.create({
         dedupeKey: `advisory:${advisory.id}:user:${u.id}`, toAddress: u.email, advisoryId: advisory.id,

@@ -3,7 +3,7 @@ import type { PassportStatic } from 'passport';
 import type { Csrf } from '../http/csrf';
 import { HttpError, NotSignedInError } from '../http/http-error';
 import { User } from '../users/user.model';
-import type { SessionView } from './auth.schemas';
+import type { OpenSessionView, SessionView } from './auth.schemas';
 
 /** The sign-in handlers of one application (they issue its CSRF tokens). */
 export function authController(csrf: Csrf) {
@@ -43,6 +43,13 @@ export function authController(csrf: Csrf) {
           res.clearCookie('brinkmark.sid').status(204).end();
         });
       });
+    },
+
+    /** GET /api/auth/session: who is signed in, or `user: null`, with a CSRF token; never an error for a visitor. */
+    async session(req: Request, res: Response): Promise<void> {
+      const user = req.user ? await User.findByPk(req.user.id) : null;
+      if (user) res.json({ user: user.toView(), csrfToken: csrf.generateToken(req, res, false) } satisfies SessionView);
+      else res.json({ user: null, csrfToken: csrf.generateToken(req, res) } satisfies OpenSessionView);
     },
 
     /** GET /api/auth/me: who is signed in. */

@@ -31,5 +31,6 @@ export function authRoutes(config: Config, passport: PassportStatic, csrf: Csrf)
   router.post('/sign-in', publicRoute(), perAddress, validateBody(signInSchema), perAccount, auth.signIn(passport));
   router.post('/sign-out', signedIn(), auth.signOut);
   router.get('/me', signedIn(), auth.me);
+  router.get('/session', publicRoute(), auth.session);
   return router;
 }

@@ -13,3 +13,9 @@ export interface SessionView {
   user: UserView;
   csrfToken: string;
 }
+
+/** The answer to "is anyone signed in?", which a visitor gets without an error. */
+export interface OpenSessionView {
+  user: UserView | null;
+  csrfToken: string;
+}

@@ -54,10 +54,18 @@ export class StripeFake {
       return res.json(this.put('sessions', {
         id: sid, object: 'checkout.session', mode: req.body.mode, customer: req.body.customer, status: 'open', payment_status: 'unpaid',
         success_url: req.body.success_url, cancel_url: req.body.cancel_url, client_reference_id: req.body.client_reference_id ?? null,
-        metadata: req.body.metadata ?? {}, price: price.id, subscription: null, url: `http://127.0.0.1:${this.opts.port}/checkout/${sid}`,
+        metadata: req.body.metadata ?? {}, price: price.id, subscription: null, expires_at: Number(req.body.expires_at ?? now() + 86400), url: `http://127.0.0.1:${this.opts.port}/checkout/${sid}`,
       }));
     });
     api.get('/checkout/sessions/:id', (req, res) => this.found(res, this.store.sessions.get(req.params.id)));
+    api.post('/checkout/sessions/:id/expire', (req, res) => {
+      const s = this.store.sessions.get(req.params.id);
+      if (!s) return this.error(res, 404, 'No such checkout session.');
+      if (s.status !== 'open') return this.error(res, 400, `Only open checkout sessions can be expired; this one is ${String(s.status)}.`);
+      s.status = 'expired';
+      void this.send('checkout.session.expired', s);
+      return res.json(s);
+    });
     api.get('/subscriptions/:id', (req, res) => this.found(res, this.store.subscriptions.get(req.params.id)));
     api.post('/subscriptions/:id', (req, res) => {
       const sub = this.store.subscriptions.get(req.params.id);

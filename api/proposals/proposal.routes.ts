@@ -18,8 +18,8 @@ function controller(proposals: ProposalService) {
 }
 
 /** Mounted at /api/proposals. */
-export function proposalRoutes(sequelize: Sequelize, mail: MailSender): Router {
-  const c = controller(new ProposalService(sequelize, mail));
+export function proposalRoutes(sequelize: Sequelize, mail: MailSender, publicUrl: string): Router {
+  const c = controller(new ProposalService(sequelize, mail, publicUrl));
   const router = Router();
   router.post('/', requireRole('assessor'), validateBody(createProposalSchema), c.create);
   router.get('/:id', requireRole('assessor', 'board', 'admin'), c.get);

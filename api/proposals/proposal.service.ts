@@ -59,7 +59,7 @@ export function figuresFor(run: Run, results: SurplusRunResults, quota: number, 
 }
 
 export class ProposalService {
-  constructor(private readonly sequelize: Sequelize, private readonly mail: MailSender | null = null) {}
+  constructor(private readonly sequelize: Sequelize, private readonly mail: MailSender | null = null, private readonly publicUrl = '') {}
 
   async create(actorId: number, body: CreateProposalBody, revisesId: number | null = null, keepDesign?: ProposalFigures['reserveDesign']): Promise<ProposalView> {
     const { run, results } = await surplusResults(body.runId);
@@ -105,7 +105,7 @@ export class ProposalService {
         await OutboxMail.create({
           dedupeKey: `proposal-submitted:${id}:user:${member.id}`, toAddress: member.email, advisoryId: null,
           subject: `Quota proposal #${id} for ${stock.name} awaits the board`,
-          body: `A quota proposal of ${Math.round(p.quota).toLocaleString('en-GB')} ${p.figures.unit} per year for ${stock.name} was submitted. Margin to the fold: ${Math.round(p.figures.marginToFold.absolute).toLocaleString('en-GB')} ${p.figures.unit} (${(p.figures.marginToFold.fraction * 100).toFixed(1)}%).\n\nReview, comment and vote in Brinkmark.`,
+          body: `A quota proposal of ${Math.round(p.quota).toLocaleString('en-GB')} ${p.figures.unit} per year for ${stock.name} was submitted. Margin to the fold: ${Math.round(p.figures.marginToFold.absolute).toLocaleString('en-GB')} ${p.figures.unit} (${(p.figures.marginToFold.fraction * 100).toFixed(1)}%).\n\nReview, comment and vote in Brinkmark: ${this.publicUrl}/proposals/${id}`,
           lastError: null, messageId: null, nextAttemptAt: new Date(), sentAt: null,
         }, { transaction: t });
       }

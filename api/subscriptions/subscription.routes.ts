@@ -1,6 +1,7 @@
 import express, { Router } from 'express';
 import { publicRoute, requireRole } from '../http/auth';
 import { idParam, validateBody } from '../http/validate';
+import { mailPreferenceSchema } from '../users/user.schemas';
 import { checkoutSchema } from './subscription.schemas';
 import type { SubscriptionService } from './subscription.service';
 
@@ -10,6 +11,8 @@ export function subscriptionRoutes(subs: SubscriptionService): Router {
   router.get('/', requireRole('licensee'), async (req, res) => { res.json({ subscriptions: await subs.mine(req.user!.id) }); });
   router.get('/plans', requireRole('licensee'), async (_req, res) => { res.json({ plans: await subs.plans() }); });
   router.post('/checkout', requireRole('licensee'), validateBody(checkoutSchema), async (req, res) => { res.status(201).json(await subs.checkout(req.user!, req.body)); });
+  router.put('/mail-preference', requireRole('licensee'), validateBody(mailPreferenceSchema), async (req, res) => { res.json(await subs.setMailPreference(req.user!, req.body.mailPreference)); });
+  router.post('/abandon-pending', requireRole('licensee'), async (req, res) => { res.json(await subs.abandonPending(req.user!)); });
   router.post('/:id/cancel', requireRole('licensee'), async (req, res) => { res.status(202).json(await subs.cancel(req.user!, idParam(req.params.id))); });
   return router;
 }

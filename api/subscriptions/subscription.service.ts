@@ -8,6 +8,8 @@ import { recordAudit } from '../audit/audit.service';
 import type { Config } from '../config';
 import { ConflictError, HttpError, NotFoundError } from '../http/http-error';
 import { Region } from '../regions/region.model';
+import { User } from '../users/user.model';
+import type { MailPreference } from '../users/user.schemas';
 import { Invoice, StripeEvent, Subscription, type SubscriptionStatus } from './subscription.models';
 import { CURRENCY, PLAN_PRICES, type PlanView, type SubscriptionView } from './subscription.schemas';
 
@@ -17,6 +19,9 @@ export function createStripe(config: Config): Stripe {
   const u = new URL(config.STRIPE_API_BASE);
   return new Stripe(config.STRIPE_SECRET_KEY, { host: u.hostname, port: Number(u.port || 80), protocol: u.protocol.replace(':', '') as 'http' | 'https', maxNetworkRetries: 1, timeout: 10_000 });
 }
+
+/** How long a started checkout stays open; an unfinished one then expires and leaves the list. */
+export const CHECKOUT_OPEN_MS = 30 * 60_000;
 
 type StripeSub = Stripe.Subscription & { current_period_end?: number };
 
@@ -85,6 +90,7 @@ export class SubscriptionService {
         mode: 'subscription', customer, line_items: [{ price, quantity: 1 }], client_reference_id: String(user.id),
         metadata: { userId: String(user.id), regionId: String(region.id), plan: body.plan },
         success_url: `${this.config.PUBLIC_URL}/portal?checkout=done`, cancel_url: `${this.config.PUBLIC_URL}/portal?checkout=cancelled`,
+        expires_at: Math.floor((Date.now() + CHECKOUT_OPEN_MS) / 1000),
       });
       await this.sequelize.transaction(async (t) => {
         const s = await Subscription.create({ userId: user.id, regionId: region.id, plan: body.plan, stripeCustomerId: customer, stripeCheckoutId: session.id, stripeSubscriptionId: null, status: 'pending', currentPeriodEnd: null }, { transaction: t });
@@ -101,11 +107,48 @@ export class SubscriptionService {
     const subs = await Subscription.findAll({ where: { userId }, order: [['id', 'DESC']] });
     const regions = new Map((await Region.findAll()).map((r) => [r.id, r.name]));
     const invoices = await Invoice.findAll({ where: { subscriptionId: subs.map((s) => s.id) }, order: [['periodStart', 'DESC']] });
-    return subs.filter((s) => s.status !== 'pending' || Date.now() - s.createdAt.getTime() < 3_600_000).map((s) => ({
+    return subs.filter((s) => s.status !== 'pending' || Date.now() - s.createdAt.getTime() < CHECKOUT_OPEN_MS).map((s) => ({
       id: s.id, regionId: s.regionId, regionName: regions.get(s.regionId) ?? '', plan: s.plan, status: s.status, cancelAtPeriodEnd: s.cancelAtPeriodEnd,
       currentPeriodEnd: s.currentPeriodEnd?.toISOString() ?? null, hasAccess: s.grantsAccess(),
       invoices: invoices.filter((i) => i.subscriptionId === s.id).map((i) => ({ id: i.id, amount: i.amount, currency: i.currency, status: i.status, periodStart: i.periodStart.toISOString(), periodEnd: i.periodEnd.toISOString() })),
     }));
+  }
+
+  /** The licensee's choice of advisory mail (audited). */
+  async setMailPreference(user: Express.User, mailPreference: MailPreference): Promise<{ mailPreference: MailPreference }> {
+    return this.sequelize.transaction(async (t) => {
+      const u = (await User.findByPk(user.id, { transaction: t, lock: t.LOCK.UPDATE }))!;
+      const before = { mailPreference: u.mailPreference };
+      await u.update({ mailPreference }, { transaction: t });
+      await recordAudit({ actorId: user.id, action: 'user.mail-preference', entityType: 'user', entityId: user.id, before, after: { mailPreference } }, t);
+      return { mailPreference };
+    });
+  }
+
+  /**
+   * Abandons the licensee's unfinished checkouts (declined card, back from the payment page): each is
+   * expired at Stripe and its pending record removed, so it leaves the list.
+   */
+  async abandonPending(user: Express.User): Promise<{ removed: number }> {
+    const pending = await Subscription.findAll({ where: { userId: user.id, status: 'pending' } });
+    let removed = 0;
+    for (const s of pending) {
+      try {
+        await this.stripe.checkout.sessions.expire(s.stripeCheckoutId);
+      } catch (err) {
+        // a session that is no longer open (completed in the meantime) is left to its webhook
+        if ((err as { statusCode?: number }).statusCode !== 400) throw new HttpError(502, 'PAYMENT_PROVIDER_UNAVAILABLE', `The payment provider did not answer: ${(err as Error).message}`);
+        continue;
+      }
+      await this.sequelize.transaction(async (t) => {
+        const row = await Subscription.findByPk(s.id, { transaction: t, lock: t.LOCK.UPDATE });
+        if (row?.status !== 'pending') return;
+        await recordAudit({ actorId: user.id, action: 'subscription.checkout.abandon', entityType: 'subscription', entityId: row.id, before: { status: 'pending', regionId: row.regionId } }, t);
+        await row.destroy({ transaction: t });
+        removed++;
+      });
+    }
+    return { removed };
   }
 
   /** Asks Stripe to end the subscription at the end of the paid period; our record follows the webhook. */
@@ -157,6 +200,18 @@ export class SubscriptionService {
       const before = { status: s.status };
       await s.update({ stripeSubscriptionId: fetched.id, status: statusOf(fetched.status), currentPeriodEnd: periodEnd(fetched), cancelAtPeriodEnd: fetched.cancel_at_period_end }, { transaction: t });
       await audit(s, before);
+      // earlier unfinished checkouts for the same region (a declined card, say) are done with
+      const stale = await Subscription.findAll({ where: { userId: s.userId, regionId: s.regionId, status: 'pending' }, transaction: t });
+      for (const p of stale) {
+        await recordAudit({ actorId: null, action: 'subscription.checkout.superseded', entityType: 'subscription', entityId: p.id, before: { status: 'pending' }, after: { by: s.id } }, t);
+        await p.destroy({ transaction: t });
+      }
+    } else if (event.type === 'checkout.session.expired') {
+      const session = event.data.object as Stripe.Checkout.Session;
+      const s = await Subscription.findOne({ where: { stripeCheckoutId: session.id, status: 'pending' }, transaction: t, lock: t.LOCK.UPDATE });
+      if (!s) return;
+      await recordAudit({ actorId: null, action: 'stripe.checkout.session.expired', entityType: 'subscription', entityId: s.id, before: { status: 'pending' }, after: { event: event.id } }, t);
+      await s.destroy({ transaction: t });
     } else if (event.type === 'customer.subscription.updated' || event.type === 'customer.subscription.deleted') {
       const sub = event.data.object as StripeSub;
       const s = await Subscription.findOne({ where: { stripeSubscriptionId: sub.id }, transaction: t, lock: t.LOCK.UPDATE });

@@ -10,6 +10,9 @@ export function userController(users: UserService) {
     create: async (req: Request, res: Response) => {
       res.status(201).json({ user: await users.create(req.user!.id, req.body) });
     },
+    resetPassword: async (req: Request, res: Response) => {
+      res.json({ user: await users.resetPassword(req.user!.id, idParam(req.params.id), req.body) });
+    },
     update: async (req: Request, res: Response) => {
       res.json({ user: await users.update(req.user!.id, idParam(req.params.id), req.body) });
     },

@@ -1,7 +1,7 @@
 import {
   CreationOptional, DataTypes, InferAttributes, InferCreationAttributes, Model, Sequelize,
 } from 'sequelize';
-import type { Role, UserView } from './user.schemas';
+import { MAIL_PREFERENCES, type MailPreference, type Role, type UserView } from './user.schemas';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
@@ -13,6 +13,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare regionId: number | null;
   declare active: CreationOptional<boolean>;
   declare boardChair: CreationOptional<boolean>;
+  declare mailPreference: CreationOptional<MailPreference>;
+  /** When this licensee's last digest was queued. */
+  declare digestSentAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -21,7 +24,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
     return {
       id: this.id, email: this.email, name: this.name, role: this.role,
       organisation: this.organisation, regionId: this.regionId, active: this.active, boardChair: this.boardChair,
-      createdAt: this.createdAt.toISOString(),
+      mailPreference: this.mailPreference, createdAt: this.createdAt.toISOString(),
     };
   }
 
@@ -37,6 +40,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         regionId: { type: DataTypes.INTEGER, allowNull: true, field: 'region_id' },
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         boardChair: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false, field: 'board_chair' },
+        mailPreference: { type: DataTypes.ENUM(...MAIL_PREFERENCES), allowNull: false, defaultValue: 'every', field: 'mail_preference' },
+        digestSentAt: { type: DataTypes.DATE, allowNull: true, field: 'digest_sent_at' },
         createdAt: { type: DataTypes.DATE, field: 'created_at' },
         updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
       },

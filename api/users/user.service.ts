@@ -6,7 +6,7 @@ import { recordAudit } from '../audit/audit.service';
 import { ConflictError, NotFoundError, ValidationError } from '../http/http-error';
 import { Region } from '../regions/region.model';
 import { User } from './user.model';
-import type { CreateUserBody, UpdateUserBody, UserView } from './user.schemas';
+import type { CreateUserBody, ResetPasswordBody, UpdateUserBody, UserView } from './user.schemas';
 
 export class UserService {
   constructor(private readonly sequelize: Sequelize) {}
@@ -35,7 +35,7 @@ export class UserService {
     }
   }
 
-  /** Changes role, region or active flag; an administrator cannot lock themself out. */
+  /** Changes role, region, chair or active flag; an administrator cannot lock themself out. */
   async update(actorId: number, id: number, body: UpdateUserBody): Promise<UserView> {
     return this.sequelize.transaction(async (t) => {
       const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
@@ -47,8 +47,32 @@ export class UserService {
       const role = body.role ?? user.role;
       const regionId = body.regionId !== undefined ? body.regionId : user.regionId;
       await this.checkRegion(role, regionId);
-      await user.update({ role, regionId, active: body.active ?? user.active }, { transaction: t });
+      const boardChair = role !== 'board' ? false : body.boardChair ?? user.boardChair;
+      if (body.boardChair && role !== 'board') {
+        throw new ValidationError('Only a board member can chair the board.', { boardChair: ['the user is not a board member'] });
+      }
+      if (boardChair && !user.boardChair) {
+        const previous = await User.findAll({ where: { boardChair: true }, transaction: t, lock: t.LOCK.UPDATE });
+        for (const p of previous) {
+          const was = p.toView();
+          await p.update({ boardChair: false }, { transaction: t });
+          await recordAudit({ actorId, action: 'user.update', entityType: 'user', entityId: p.id, before: was, after: p.toView() }, t);
+        }
+      }
+      await user.update({ role, regionId, active: body.active ?? user.active, boardChair }, { transaction: t });
       await recordAudit({ actorId, action: 'user.update', entityType: 'user', entityId: id, before, after: user.toView() }, t);
+      return user.toView();
+    });
+  }
+
+  /** Sets a new password chosen by the administrator; the audit entry records that it changed, never the password. */
+  async resetPassword(actorId: number, id: number, body: ResetPasswordBody): Promise<UserView> {
+    const passwordHash = await hashPassword(body.password);
+    return this.sequelize.transaction(async (t) => {
+      const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+      if (!user) throw new NotFoundError('User');
+      await user.update({ passwordHash }, { transaction: t });
+      await recordAudit({ actorId, action: 'user.password.reset', entityType: 'user', entityId: id, after: { passwordChanged: true } }, t);
       return user.toView();
     });
   }

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -21,7 +22,7 @@ import { UserApi } from './user-api';
 @Component({
   selector: 'bm-user-admin',
   imports: [ReactiveFormsModule, MatTableModule, MatSelectModule, MatFormFieldModule, MatInputModule, MatButtonModule,
-    MatIconModule, MatSlideToggleModule, MatCardModule, BoardRules],
+    MatIconModule, MatSlideToggleModule, MatCardModule, MatCheckboxModule, BoardRules],
   templateUrl: './user-admin.html',
   styleUrl: './user-admin.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -31,7 +32,9 @@ export class UserAdmin {
   private readonly notifier = inject(Notifier);
   protected readonly me = inject(AuthStore).user;
   protected readonly roles: readonly Role[] = ['admin', 'assessor', 'board', 'licensee'];
-  protected readonly columns = ['name', 'email', 'role', 'region', 'active'];
+  protected readonly columns = ['name', 'email', 'role', 'region', 'chair', 'active', 'password'];
+  protected readonly resetFor = signal<UserView | null>(null);
+  protected readonly newPassword = new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.minLength(10)] });
   protected readonly users = signal<UserView[]>([]);
   protected readonly regions = toSignal(inject(RegionApi).list(), { initialValue: [] });
   protected readonly regionName = computed(() => new Map(this.regions().map((r) => [r.id, r.name])));
@@ -70,7 +73,20 @@ export class UserAdmin {
     }
   }
 
-  protected async change(user: UserView, patch: { role?: Role; active?: boolean; regionId?: number | null }): Promise<void> {
+  protected async resetPassword(user: UserView): Promise<void> {
+    this.newPassword.markAsTouched();
+    if (this.newPassword.invalid) return;
+    try {
+      await firstValueFrom(this.api.resetPassword(user.id, this.newPassword.value));
+      this.notifier.info(`New password set for ${user.name}.`);
+      this.newPassword.reset();
+      this.resetFor.set(null);
+    } catch (err) {
+      this.notifier.error(err instanceof Error ? err.message : 'Could not set the password.');
+    }
+  }
+
+  protected async change(user: UserView, patch: { role?: Role; active?: boolean; regionId?: number | null; boardChair?: boolean }): Promise<void> {
     try {
       await firstValueFrom(this.api.update(user.id, patch));
       this.notifier.info(`Saved changes to ${user.name}.`);

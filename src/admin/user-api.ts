@@ -15,6 +15,10 @@ export class UserApi {
     return this.http.post<{ user: UserView }>('/api/users', body).pipe(map((r) => r.user));
   }
 
+  resetPassword(id: number, password: string): Observable<UserView> {
+    return this.http.post<{ user: UserView }>(`/api/users/${id}/password`, { password }).pipe(map((r) => r.user));
+  }
+
   update(id: number, body: UpdateUserBody): Observable<UserView> {
     return this.http.patch<{ user: UserView }>(`/api/users/${id}`, body).pipe(map((r) => r.user));
   }

@@ -24,6 +24,16 @@ describe('sign-in', () => {
     expect(me.body.user.passwordHash).toBeUndefined();
   });
 
+  it('answers "is anyone signed in?" for a visitor without an error, with a token that signs in', async () => {
+    const agent = request.agent(app);
+    const open = await agent.get('/api/auth/session').expect(200);
+    expect(open.body.user).toBeNull();
+    expect(typeof open.body.csrfToken).toBe('string');
+    const res = await agent.post('/api/auth/sign-in').set('x-csrf-token', open.body.csrfToken).send({ email: demoEmail('board'), password: DEMO_PASSWORD }).expect(200);
+    const after = await agent.get('/api/auth/session').set('x-csrf-token', res.body.csrfToken).expect(200);
+    expect(after.body.user.email).toBe(demoEmail('board'));
+  });
+
   it('rejects a wrong password with the same generic message as an unknown e-mail', async () => {
     const { agent, csrf } = await anonymous(app);
     const wrong = await agent.post('/api/auth/sign-in').set('x-csrf-token', csrf)

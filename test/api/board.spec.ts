@@ -8,10 +8,12 @@ import type request from 'supertest';
 import { Advisory } from '../../api/advisories/advisory.model';
 import { Decision } from '../../api/board/board.models';
 import { Subscription } from '../../api/subscriptions/subscription.models';
+import { queueDigests } from '../../api/mail/digest';
+import { OutboxMail } from '../../api/mail/outbox.model';
 import { User } from '../../api/users/user.model';
 import { submittedProposal } from './support/decided';
 import { received, recipients } from './support/mailbox';
-import { signIn, testApp, type SignedIn } from './support/test-app';
+import { signIn, testApp, testConfig, type SignedIn } from './support/test-app';
 
 const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
@@ -45,6 +47,8 @@ describe('quota board, decisions and advisories', () => {
     await app.locals.mail.flush();
     const mails = (await received()).filter((m) => m.subject?.includes(`#${proposalId} `));
     expect(mails.flatMap(recipients).sort()).toEqual(['ana.lusk@corran-firth.example', 'maren.holt@corran-firth.example', 'odhran.pike@corran-firth.example']);
+    // each carries a link that opens the proposal
+    for (const m of mails) expect(m.text).toContain(`${testConfig().PUBLIC_URL}/proposals/${proposalId}`);
   });
 
   it('applies the quorum the administrator sets, which no board member may change', async () => {
@@ -139,11 +143,22 @@ describe('quota board, decisions and advisories', () => {
     let moorfellSub: Subscription;
     let expectedRecipients: string[];
     let proposalOfAdvisory: number;
+    let correctionsOnly: User;
+    let digestReader: User;
     let stockOfAdvisory: number;
 
     beforeAll(async () => {
       const keeper = (await User.findOne({ where: { email: 'keeper@moorfell-estate.example' } }))!;
       moorfellSub = await Subscription.create({ userId: keeper.id, regionId: keeper.regionId!, plan: 'yearly', stripeCustomerId: 'cus_test', stripeCheckoutId: `cs_test_${Date.now()}`, stripeSubscriptionId: null, status: 'active', currentPeriodEnd: new Date(Date.now() + 30 * 86_400_000) });
+      // two more Moorfell licensees who chose less mail: corrections only, and the weekly digest
+      const tag = Date.now().toString(36);
+      const reader = async (name: string, mailPreference: 'corrections' | 'digest') => {
+        const u = await User.create({ email: `${mailPreference}.${tag}@moorfell-estate.example`, name, role: 'licensee', passwordHash: 'x', organisation: null, regionId: keeper.regionId!, mailPreference });
+        await Subscription.create({ userId: u.id, regionId: keeper.regionId!, plan: 'yearly', stripeCustomerId: `cus_${mailPreference}`, stripeCheckoutId: `cs_test_${mailPreference}_${tag}`, stripeSubscriptionId: null, status: 'active', currentPeriodEnd: new Date(Date.now() + 30 * 86_400_000) });
+        return u;
+      };
+      correctionsOnly = await reader('Moorfell Low Beat', 'corrections');
+      digestReader = await reader('Moorfell High Beat', 'digest');
       const { proposalId, lower5, stock } = await submittedProposal(assessor, 'red-grouse', 0.9);
       proposalOfAdvisory = proposalId;
       stockOfAdvisory = stock.id;
@@ -151,7 +166,7 @@ describe('quota board, decisions and advisories', () => {
       await vote(ana, proposalId, 'abstain').expect(201);
       limit = Math.round(lower5 * 0.85);
       const live = (await Subscription.findAll({ where: { regionId: keeper.regionId! } })).filter((x) => x.grantsAccess());
-      expectedRecipients = (await User.findAll({ where: { id: live.map((x) => x.userId) } })).map((u) => u.email).sort();
+      expectedRecipients = (await User.findAll({ where: { id: live.map((x) => x.userId), mailPreference: 'every' } })).map((u) => u.email).sort();
       const res = await decide(chair, proposalId, { outcome: 'approved', limit, reason: 'Lowered below the proposal to keep a wider margin.' }).expect(201);
       advisoryId = res.body.advisoryId;
       await app.locals.mail.flush();
@@ -182,6 +197,8 @@ describe('quota board, decisions and advisories', () => {
       expect(expectedRecipients).toContain('keeper@moorfell-estate.example');
       expect(mails.flatMap(recipients).sort()).toEqual(expectedRecipients);
       expect(mails.flatMap(recipients)).not.toContain('office@inner-firth-potters.example');
+      expect(mails.flatMap(recipients)).not.toContain(correctionsOnly.email);
+      expect(mails.flatMap(recipients)).not.toContain(digestReader.email);
     });
 
     it('cannot be changed; a correction is a new advisory that supersedes it', async () => {
@@ -208,6 +225,19 @@ describe('quota board, decisions and advisories', () => {
       expect(board.audit.map((e: { action: string }) => e.action)).toContain('proposal.correct.chair');
       const listed = (await assessor.agent.get(`/api/stocks/${stockOfAdvisory}/proposals`).expect(200)).body.proposals.find((p: { id: number }) => p.id === proposalOfAdvisory);
       expect(listed.standing).toEqual(jasmine.objectContaining({ outcome: 'approved', limit: limit - 50, corrected: true }));
+      // the correction goes to those who asked for every advisory and to those who asked for corrections only
+      const queued = await OutboxMail.findAll({ where: { advisoryId: corr.body.advisory.id } });
+      expect(queued.map((m) => m.toAddress)).toContain(correctionsOnly.email);
+      expect(queued.map((m) => m.toAddress)).not.toContain(digestReader.email);
+      expect(queued.find((m) => m.toAddress === correctionsOnly.email)!.subject).toContain(`Correction to harvest advisory ${before.docId}`);
+      // the digest reader gets both, once, in the weekly digest
+      expect(await queueDigests(User.sequelize!, 'http://brinkmark.test')).toBeGreaterThanOrEqual(1);
+      const digest = await OutboxMail.findAll({ where: { toAddress: digestReader.email } });
+      expect(digest.length).toBe(1);
+      expect(digest[0]!.body).toContain(before.docId);
+      expect(digest[0]!.body).toContain(`${corr.body.advisory.docId} (correction)`);
+      await queueDigests(User.sequelize!, 'http://brinkmark.test');
+      expect(await OutboxMail.count({ where: { toAddress: digestReader.email } })).toBe(1);
       expect((await chair.agent.post(`/api/advisories/${advisoryId}/supersede`).set('x-csrf-token', chair.csrf).send({ limit: 10, reason: 'Second correction of the old one.' }).expect(409)).body.error.code).toBe('ALREADY_SUPERSEDED');
     });
 

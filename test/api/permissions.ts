@@ -26,6 +26,8 @@ export const PERMISSIONS: readonly Permission[] = [
   { method: 'GET', path: '/api/health', roles: 'public' },
   { method: 'POST', path: '/api/auth/sign-out', roles: ANY },
   { method: 'GET', path: '/api/auth/me', roles: ANY },
+  // asking whether anyone is signed in is no error for a visitor
+  { method: 'GET', path: '/api/auth/session', roles: 'public' },
 
   // Stripe calls the webhook without a session; its signature is the check
   { method: 'POST', path: '/api/stripe/webhook', roles: 'public' },
@@ -34,6 +36,7 @@ export const PERMISSIONS: readonly Permission[] = [
   { method: 'GET', path: '/api/users', roles: ['admin'] },
   { method: 'POST', path: '/api/users', roles: ['admin'] },
   { method: 'PATCH', path: '/api/users/:id', roles: ['admin'] },
+  { method: 'POST', path: '/api/users/:id/password', roles: ['admin'] },
 
   // regions and stocks are the shared vocabulary every role reads
   { method: 'GET', path: '/api/regions', roles: ANY },
@@ -81,6 +84,8 @@ export const PERMISSIONS: readonly Permission[] = [
   { method: 'GET', path: '/api/subscriptions/plans', roles: ['licensee'] },
   { method: 'POST', path: '/api/subscriptions/checkout', roles: ['licensee'] },
   { method: 'POST', path: '/api/subscriptions/:id/cancel', roles: ['licensee'] },
+  { method: 'POST', path: '/api/subscriptions/abandon-pending', roles: ['licensee'] },
+  { method: 'PUT', path: '/api/subscriptions/mail-preference', roles: ['licensee'] },
 
   // the administrator's views of the mail folder and the audit trail
   { method: 'GET', path: '/api/admin/mail', roles: ['admin'] },

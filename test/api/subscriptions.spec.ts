@@ -116,6 +116,34 @@ describe('licensee subscriptions through the Stripe fake', () => {
     expect(row!.grantsAccess()).toBeFalse();
   });
 
+  it('a declined checkout that is abandoned expires at Stripe and leaves the list; a later payment for the region clears any other', async () => {
+    // a region of this spec's own, so the other specs' subscriptions do not interfere
+    const bay = await Region.create({ code: `bay-${Date.now().toString(36)}`, name: 'Test Bay', description: null });
+    const declined = await checkout(bay.id, 'monthly', '4000 0000 0000 0002');
+    expect(await declined.text()).toContain('Your card was declined.');
+    expect((await mine()).filter((x) => x.regionId === bay.id).map((x) => x.status)).toEqual(['pending']);
+    const pendingRow = (await Subscription.findOne({ where: { regionId: bay.id, status: 'pending' }, order: [['id', 'DESC']] }))!;
+    expect((await agent.post('/api/subscriptions/abandon-pending').set('x-csrf-token', csrf).expect(200)).body.removed).toBeGreaterThanOrEqual(1);
+    expect(await Subscription.findByPk(pendingRow.id)).toBeNull();
+    expect((await mine()).filter((x) => x.regionId === bay.id)).toEqual([]);
+    const session = await (await fetch(`${FAKE}/v1/checkout/sessions/${pendingRow.stripeCheckoutId}`, { headers: { authorization: 'Bearer sk_test_brinkmark' } })).json() as { status: string };
+    expect(session.status).toBe('expired');
+    // a declined try left behind, then a card that pays: only the paid subscription remains
+    await checkout(bay.id, 'monthly', '4000 0000 0000 0002');
+    await checkout(bay.id, 'monthly', '4242 4242 4242 4242');
+    const rows = await until(() => mine(), (l) => { const r = l.filter((x) => x.regionId === bay.id); return r.length === 1 && r[0]!.status === 'active'; }, 'the declined checkout to leave');
+    expect(rows.filter((x) => x.regionId === bay.id).map((x) => x.status)).toEqual(['active']);
+  });
+
+  it('an expired checkout session (Stripe\'s webhook) removes its pending record', async () => {
+    const res = await agent.post('/api/subscriptions/checkout').set('x-csrf-token', csrf).send({ regionId: innerFirth.id, plan: 'monthly' }).expect(201);
+    const row = (await Subscription.findOne({ where: { regionId: innerFirth.id, status: 'pending' }, order: [['id', 'DESC']] }))!;
+    const sid = String(res.body.url).split('/').pop()!;
+    expect(row.stripeCheckoutId).toBe(sid);
+    await fetch(`${FAKE}/v1/checkout/sessions/${sid}/expire`, { method: 'POST', headers: { authorization: 'Bearer sk_test_brinkmark' } });
+    await until(() => Subscription.findByPk(row.id), (r) => r === null, 'the expired checkout to be removed');
+  });
+
   it('a failed renewal keeps access to the end of the paid period, then cancellation ends it', async () => {
     const row = await activeIn(skerry);
     await fetch(`${FAKE}/_fake/subscriptions/${row.stripeSubscriptionId}/renew`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ outcome: 'failed' }) });

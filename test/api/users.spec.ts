@@ -77,4 +77,34 @@ describe('user administration', () => {
     await admin.agent.patch(`/api/users/${created.body.user.id}`).set('x-csrf-token', admin.csrf).send({ active: false }).expect(200);
     await person.agent.get('/api/stocks').expect(401);
   });
+
+  it('moves the chair to another board member, the previous chair stepping down, and refuses a chair who is not on the board', async () => {
+    const { agent, csrf } = await signIn(app, 'admin');
+    const holt = (await User.findOne({ where: { email: 'maren.holt@corran-firth.example' } }))!;
+    const pike = (await User.findOne({ where: { email: 'odhran.pike@corran-firth.example' } }))!;
+    const reyl = (await User.findOne({ where: { email: 'tomas.reyl@corran-firth.example' } }))!;
+    try {
+      await agent.patch(`/api/users/${pike.id}`).set('x-csrf-token', csrf).send({ boardChair: true }).expect(200);
+      expect((await User.findAll({ where: { boardChair: true } })).map((u) => u.id)).toEqual([pike.id]);
+      const refused = await agent.patch(`/api/users/${reyl.id}`).set('x-csrf-token', csrf).send({ boardChair: true }).expect(400);
+      expect(refused.body.error.fields.boardChair).toBeDefined();
+      expect((await User.findByPk(reyl.id))!.boardChair).toBeFalse();
+    } finally {
+      await agent.patch(`/api/users/${holt.id}`).set('x-csrf-token', csrf).send({ boardChair: true }).expect(200);
+    }
+    expect((await User.findAll({ where: { boardChair: true } })).map((u) => u.id)).toEqual([holt.id]);
+  });
+
+  it("moves a licensee to another region and resets a password without writing it to the audit trail", async () => {
+    const { agent, csrf } = await signIn(app, 'admin');
+    const created = await agent.post('/api/users').set('x-csrf-token', csrf)
+      .send({ email: `moving.${RUN}@corran-firth.example`, name: 'Moving Boats', role: 'licensee', password: 'first-password-1', regionId: 1 }).expect(201);
+    const id = created.body.user.id as number;
+    expect((await agent.patch(`/api/users/${id}`).set('x-csrf-token', csrf).send({ regionId: 2 }).expect(200)).body.user.regionId).toBe(2);
+    expect((await agent.post(`/api/users/${id}/password`).set('x-csrf-token', csrf).send({ password: 'short' }).expect(400)).body.error.fields.password).toBeDefined();
+    await agent.post(`/api/users/${id}/password`).set('x-csrf-token', csrf).send({ password: 'second-password-2' }).expect(200);
+    await signIn(app, { email: `moving.${RUN}@corran-firth.example`, password: 'second-password-2' });
+    const entry = await AuditEvent.findOne({ where: { action: 'user.password.reset', entityId: id } });
+    expect(JSON.stringify(entry?.after)).not.toContain('second-password-2');
+  });
 });

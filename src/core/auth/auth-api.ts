@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { SessionView } from '../../../api/auth/auth.schemas';
+import type { OpenSessionView, SessionView } from '../../../api/auth/auth.schemas';
 
 /** The sign-in endpoints. */
 @Injectable({ providedIn: 'root' })
@@ -10,6 +10,11 @@ export class AuthApi {
 
   csrf(): Observable<{ csrfToken: string }> {
     return this.http.get<{ csrfToken: string }>('/api/auth/csrf');
+  }
+
+  /** Who is signed in (user null for a visitor), answered without an error either way. */
+  session(): Observable<OpenSessionView> {
+    return this.http.get<OpenSessionView>('/api/auth/session');
   }
 
   me(): Observable<SessionView> {

@@ -17,8 +17,9 @@ export class AuthStore {
   /** Picks up an existing session at start-up (or fetches a CSRF token for the sign-in form). */
   async restore(): Promise<void> {
     try {
-      const session = await firstValueFrom(this.api.me());
-      this.accept(session.user, session.csrfToken);
+      const session = await firstValueFrom(this.api.session());
+      this.current.set(session.user);
+      this.csrf.set(session.csrfToken);
     } catch {
       this.current.set(null);
       await this.refreshToken();

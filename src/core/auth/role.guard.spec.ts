@@ -17,17 +17,20 @@ describe('roleGuard', () => {
 
   function run(role: Role | null, ...allowed: Role[]): boolean | UrlTree {
     TestBed.configureTestingModule({ providers: [provideRouter([]), { provide: AuthStore, useValue: storeFor(role) }] });
-    return TestBed.runInInjectionContext(() => roleGuard(...allowed)({} as Route, [] as UrlSegment[])) as boolean | UrlTree;
+    const segments = [new UrlSegment('admin', {}), new UrlSegment('users', {})];
+    return TestBed.runInInjectionContext(() => roleGuard(...allowed)({} as Route, segments)) as boolean | UrlTree;
   }
 
   it('lets an administrator into an admin-only route', () => {
     expect(run('admin', 'admin')).toBeTrue();
   });
 
-  it('sends a signed-in board member away from an admin route to their home page', () => {
+  it('sends a signed-in board member away from an admin route to a page that names the page and who may open it', () => {
     const result = run('board', 'admin');
     expect(result instanceof UrlTree).toBeTrue();
-    expect(TestBed.inject(Router).serializeUrl(result as UrlTree)).toBe('/');
+    const tree = result as UrlTree;
+    expect(tree.root.children['primary']!.segments.map((s) => s.path)).toEqual(['not-allowed']);
+    expect(tree.queryParams).toEqual({ page: '/admin/users', roles: 'admin' });
   });
 
   it('sends an anonymous visitor to the sign-in page', () => {
