@@ -18,7 +18,7 @@ import { stripeWebhookRoutes, subscriptionRoutes } from './subscriptions/subscri
 import { mailRoutes } from './mail/mail.routes';
 import { datasetRoutes, stockDatasetRoutes } from './datasets/dataset.routes';
 import { proposalRoutes, stockProposalRoutes } from './proposals/proposal.routes';
-import { RunQueue } from './runs/run-queue';
+import { RunJobs } from './runs/run-jobs';
 import { runRoutes, stockRunRoutes } from './runs/run.routes';
 import { authRoutes } from './auth/auth.routes';
 import { usePasswordCost } from './auth/auth.service';
@@ -42,13 +42,13 @@ export interface ApiMount {
 export interface AppDeps {
   config: Config;
   sequelize: Sequelize;
-  /** The queue that runs model runs in worker threads (one is made when not given). */
-  runQueue?: RunQueue;
+  /** The run queue on Redis (one is made from the config when not given). */
+  runJobs?: RunJobs;
 }
 
 /** The long-lived services routes share. */
 interface Services {
-  queue: RunQueue;
+  jobs: RunJobs;
   mail: MailSender;
   board: BoardService;
   advisories: AdvisoryService;
@@ -58,7 +58,8 @@ interface Services {
 }
 
 /** Every API router and where it is mounted: the role matrix test walks this list. */
-export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>, { queue, mail, board, advisories, subscriptions, csrf, health }: Services): ApiMount[] {
+export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<typeof createPassport>, { jobs, mail, board, advisories, subscriptions, csrf, health }: Services): ApiMount[] {
+  const runs = { jobs, limitPerUser: config.RUN_LIMIT_PER_USER };
   return [
     { base: '/api/health', router: healthRoutes(health) },
     { base: '/api/auth', router: authRoutes(config, passport, csrf) },
@@ -66,10 +67,10 @@ export function apiMounts({ config, sequelize }: AppDeps, passport: ReturnType<t
     { base: '/api/regions', router: regionRoutes() },
     { base: '/api/stocks', router: stockRoutes() },
     { base: '/api/stocks/:stockId/datasets', router: stockDatasetRoutes(sequelize) },
-    { base: '/api/stocks/:stockId/runs', router: stockRunRoutes(sequelize, queue) },
+    { base: '/api/stocks/:stockId/runs', router: stockRunRoutes(sequelize, runs) },
     { base: '/api/stocks/:stockId/proposals', router: stockProposalRoutes(sequelize) },
     { base: '/api/datasets', router: datasetRoutes(sequelize) },
-    { base: '/api/runs', router: runRoutes(sequelize, queue) },
+    { base: '/api/runs', router: runRoutes(sequelize, runs) },
     { base: '/api/proposals', router: proposalRoutes(sequelize, mail, config.PUBLIC_URL) },
     { base: '/api/proposals/:proposalId/board', router: proposalBoardRoutes(board) },
     { base: '/api/board', router: boardRoutes(board) },
@@ -115,19 +116,19 @@ export function createApp(deps: AppDeps): express.Express {
       },
     },
   }));
-  const queue = deps.runQueue ?? new RunQueue();
+  const jobs = deps.runJobs ?? new RunJobs(config);
   const mail = new MailSender(config);
   const publisher = new AdvisoryPublisher(mail, config.PUBLIC_URL);
   const health = new HealthRegistry();
   const services: Services = {
-    queue, mail, board: new BoardService(sequelize, publisher), advisories: new AdvisoryService(sequelize, publisher),
+    jobs, mail, board: new BoardService(sequelize, publisher), advisories: new AdvisoryService(sequelize, publisher),
     subscriptions: new SubscriptionService(sequelize, createStripe(config), config),
     csrf: createCsrf({ secret: config.SESSION_SECRET, secureCookie: config.COOKIE_SECURE }), health,
   };
   health.register('database', databaseCheck(sequelize));
-  health.register('queue', () => queue.health());
+  health.register('queue', () => jobs.health());
   health.register('mail', () => mail.health());
-  Object.assign(app.locals, { runQueue: queue, mail, health });
+  Object.assign(app.locals, { runJobs: jobs, mail, health });
   // private data and PDFs: never kept by a browser or a shared cache
   app.use('/api', (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');

@@ -39,6 +39,18 @@ const schema = z.object({
   STRIPE_WEBHOOK_SECRET: z.string().default('whsec_brinkmark_local'),
   /** Where the Stripe SDK sends API calls: empty for Stripe itself, or the local fake. */
   STRIPE_API_BASE: z.string().default('http://127.0.0.1:4312'),
+  /** The Redis that carries the run queue (one for every API and worker process). */
+  REDIS_URL: z.string().regex(/^rediss?:\/\//, 'must be a redis:// or rediss:// URL').default('redis://127.0.0.1:4363'),
+  /** Name of the BullMQ queue of model runs. */
+  RUN_QUEUE: z.string().regex(/^[A-Za-z0-9_-]+$/).default('brinkmark-runs'),
+  /** Runs one person may have queued or running at once; one more is refused with 429 RUN_LIMIT. */
+  RUN_LIMIT_PER_USER: z.coerce.number().int().min(1).max(1000).default(10),
+  /** Runs one worker process computes at once (each in its own worker thread). */
+  WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
+  /** Worker threads a run's bootstrap uses. */
+  BOOTSTRAP_THREADS: z.coerce.number().int().min(1).max(64).default(2),
+  /** A job whose worker has not renewed its lock for this long is stalled: retried once, then failed. */
+  RUN_STALL_MS: z.coerce.number().int().min(1000).max(600_000).default(30_000),
 });
 
 export type Config = z.infer<typeof schema>;

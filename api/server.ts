@@ -4,7 +4,7 @@ import { queueDigests } from './mail/digest';
 import { loadConfig } from './config';
 import { createSequelize, schemaMigrator } from './db';
 import { whileDatabaseAway } from './health/retry';
-import { RunQueue } from './runs/run-queue';
+import type { RunJobs } from './runs/run-jobs';
 
 // the last line of defence: background work handles its own failures, and anything that slips through is logged, not fatal
 process.on('unhandledRejection', (reason) => {
@@ -15,8 +15,6 @@ const config = loadConfig();
 const sequelize = createSequelize(config);
 await whileDatabaseAway(() => sequelize.authenticate(), { label: 'connecting to the database', forMs: 10 * 60_000 });
 await schemaMigrator(sequelize).up();
-const interrupted = await RunQueue.recoverInterrupted();
-if (interrupted) console.log(`${interrupted} run(s) interrupted by the last stop were marked failed.`);
 const app = createApp({ config, sequelize });
 app.locals.mail.start();
 // weekly digests for licensees who chose them: checked at start and every hour
@@ -31,9 +29,11 @@ const server = app.listen(config.PORT, config.HOST, () => {
 function shutdown(): void {
   clearInterval(digestTimer);
   app.locals.mail.stop();
+  // open event streams would hold close() for ever: they end after a grace period
+  setTimeout(() => server.closeAllConnections(), 2_000).unref();
   server.close(() => {
     app.locals.sessionStore.stopExpiringSessions();
-    void sequelize.close().catch(() => undefined).then(() => process.exit(0));
+    void (app.locals.runJobs as RunJobs).close().then(() => sequelize.close()).catch(() => undefined).then(() => process.exit(0));
   });
   // keep-alive connections would hold close() open
   server.closeIdleConnections();

@@ -18,6 +18,10 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare error: string | null;
   declare durationMs: number | null;
   declare createdBy: number;
+  /** Times a worker claimed the run (more than one only when a stalled run was retried). */
+  declare attempts: CreationOptional<number>;
+  /** The worker process (host:pid) that claimed it last. */
+  declare worker: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare startedAt: Date | null;
   declare finishedAt: Date | null;
@@ -47,6 +51,8 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         error: { type: DataTypes.TEXT, allowNull: true },
         durationMs: { type: DataTypes.INTEGER, allowNull: true, field: 'duration_ms' },
         createdBy: { type: DataTypes.INTEGER, allowNull: false, field: 'created_by' },
+        attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        worker: { type: DataTypes.STRING(120), allowNull: true },
         createdAt: { type: DataTypes.DATE, field: 'created_at' },
         startedAt: { type: DataTypes.DATE, allowNull: true, field: 'started_at' },
         finishedAt: { type: DataTypes.DATE, allowNull: true, field: 'finished_at' },

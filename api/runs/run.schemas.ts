@@ -96,13 +96,15 @@ export const startRunSchema = z.object({
   fixed: fixedSchema.optional(),
   priors: priorsSchema.optional(),
   spatial: spatialOptionsSchema.optional(),
+  /** Queue class: high-priority runs are taken before normal ones, normal before low. */
+  priority: z.enum(['high', 'normal', 'low']).default('normal'),
 }).strict().refine((v) => v.trigger > v.limit, { path: ['trigger'], message: 'the trigger must be above the limit' })
   .refine((v) => (v.model === 'reaction-diffusion') === (v.spatial !== undefined), { path: ['spatial'], message: 'a reaction-diffusion run needs its reserve study, and only it has one' })
   .transform((v) => ({ ...v, bootstrap: v.bootstrap ?? ((PREDATOR_PREY_MODELS as readonly string[]).includes(v.model) ? 100 : 500) }));
 
 export type StartRunBody = z.infer<typeof startRunSchema>;
-/** Options as stored: runs from before the diagnostics and data-poor options lack those fields. */
-export type RunOptions = Omit<StartRunBody, 'datasetId' | 'model' | 'diagnostics' | 'peel' | 'jitter'> & Partial<Pick<StartRunBody, 'diagnostics' | 'peel' | 'jitter'>>;
+/** Options as stored: runs from before the diagnostics, data-poor and queue options lack those fields. */
+export type RunOptions = Omit<StartRunBody, 'datasetId' | 'model' | 'diagnostics' | 'peel' | 'jitter' | 'priority'> & Partial<Pick<StartRunBody, 'diagnostics' | 'peel' | 'jitter' | 'priority'>>;
 export type RunStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
 
 export interface SurplusRunResults {
@@ -144,6 +146,9 @@ export type DiscreteRunResults = DiscreteAssessment;
 export type SpatialRunResults = SpatialStudy;
 
 export type RunResults = SurplusRunResults | PredatorPreyRunResults | DiscreteRunResults | SpatialRunResults;
+
+/** What the run's event stream (GET /api/runs/:id/events) sends: the run as stored, then progress from its worker. */
+export type RunStreamEvent = { type: 'run'; run: RunView } | { type: 'progress'; fraction: number; stage: string };
 
 export interface RunView {
   id: number;

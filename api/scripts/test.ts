@@ -1,6 +1,6 @@
 /**
- * npm test: installs what the tests need (MariaDB, Chromium, poppler), starts a private test
- * database, runs the server specs (jasmine + supertest) and the client specs (Karma in headless
+ * npm test: installs what the tests need (MariaDB, Redis, Chromium, poppler), starts a private test
+ * database and an empty test Redis (the run queue), runs the server specs (jasmine + supertest) and the client specs (Karma in headless
  * Chromium), and ends with one line "total: N passed, N failed, N skipped". Exits non-zero on any
  * failure and on any skipped spec (xit, xdescribe, pending, or the rest of a focused run).
  */
@@ -11,6 +11,7 @@ import { ensureDebianPackages } from './debian';
 import { startFakes } from './fakes';
 import { ensureDatabase, startMariaDb, stopMariaDb } from './mariadb';
 import { DATA, ROOT, profile } from './local-env';
+import { startRedis, stopRedis } from './redis';
 
 interface Totals { passed: number; failed: number; skipped?: number; error?: boolean }
 
@@ -36,6 +37,7 @@ function run(name: string, cmd: string, args: string[], env: NodeJS.ProcessEnv, 
 
 ensureDebianPackages([
   { command: 'mariadbd', path: '/usr/sbin/mariadbd', pkg: 'mariadb-server' },
+  { command: 'redis-server', path: '/usr/bin/redis-server', pkg: 'redis-server' },
   { command: 'chromium', path: '/usr/bin/chromium', pkg: 'chromium' },
   { command: 'pdftoppm', path: '/usr/bin/pdftoppm', pkg: 'poppler-utils' },
 ]);
@@ -54,6 +56,7 @@ function check(name: string, cmd: string, args: string[]): void {
 let stopFakes = () => {};
 try {
   stopFakes = await startFakes(test.fakes, { fresh: true });
+  if (only !== 'client') await startRedis(test.redis, { fresh: true });
   if (!only) {
     const tsc = join(ROOT, 'node_modules', '.bin', 'tsc');
     check('type check (server and engine)', tsc, ['-p', 'tsconfig.api.json', '--noEmit']);
@@ -83,6 +86,7 @@ try {
 } finally {
   stopFakes();
   stopMariaDb(test.server);
+  stopRedis(test.redis);
 }
 
 const passed = results.reduce((s, r) => s + r.totals.passed, 0);

@@ -53,6 +53,7 @@ export const PERMISSIONS: readonly Permission[] = [
   { method: 'GET', path: '/api/stocks/:stockId/runs', roles: WORKSPACE_READERS },
   { method: 'POST', path: '/api/runs', roles: ['assessor'] },
   { method: 'GET', path: '/api/runs/:id', roles: WORKSPACE_READERS },
+  { method: 'GET', path: '/api/runs/:id/events', roles: WORKSPACE_READERS },
   { method: 'POST', path: '/api/runs/:id/cancel', roles: ['assessor'] },
 
   { method: 'GET', path: '/api/stocks/:stockId/proposals', roles: WORKSPACE_READERS },

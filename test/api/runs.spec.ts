@@ -1,7 +1,7 @@
 import type { PredatorPreyRunResults } from '../../api/runs/run.schemas';
 import type { Express } from 'express';
 import { Dataset } from '../../api/datasets/dataset.model';
-import { RunQueue } from '../../api/runs/run-queue';
+import { RunWorker } from '../../api/runs/run-processor';
 import { Stock } from '../../api/stocks/stock.model';
 import { finished, waitForRun } from './support/runs';
 import { signIn, testApp, testDb } from './support/test-app';
@@ -115,22 +115,33 @@ describe('model runs', () => {
 
   it('reports a failed fit as failed, with the engine\'s reason', async () => {
     const { sequelize } = await testDb();
-    const failing = createApp({ config: testConfig(), sequelize, runQueue: new RunQueue(new URL('../fixtures/failing-run-worker.ts', import.meta.url)) });
-    failing.locals.sessionStore.stopExpiringSessions();
-    const who = await signIn(failing, 'assessor');
-    const start = await who.agent.post('/api/runs').set('x-csrf-token', who.csrf).send({ datasetId: crabData, model: 'schaefer' }).expect(202);
-    const done = await waitForRun(who, start.body.run.id, finished);
-    expect(done.run.status).toBe('failed');
-    expect(done.run.error).toContain('the optimiser found no finite likelihood');
-    expect(done.results).toBeNull();
+    const config = testConfig({ RUN_QUEUE: 'brinkmark-runs-failing' });
+    const worker = new RunWorker(config, { name: 'failing-worker', threadUrl: new URL('../fixtures/failing-run-worker.ts', import.meta.url) });
+    await worker.ready();
+    try {
+      const failing = createApp({ config, sequelize });
+      failing.locals.sessionStore.stopExpiringSessions();
+      const who = await signIn(failing, 'assessor');
+      const start = await who.agent.post('/api/runs').set('x-csrf-token', who.csrf).send({ datasetId: crabData, model: 'schaefer' }).expect(202);
+      const done = await waitForRun(who, start.body.run.id, finished);
+      expect(done.run.status).toBe('failed');
+      expect(done.run.error).toContain('the optimiser found no finite likelihood');
+      expect(done.results).toBeNull();
+      await failing.locals.runJobs.close();
+    } finally {
+      await worker.close(true);
+    }
   });
 
-  it('marks runs left unfinished by a stopped server as failed, so nothing is silently lost', async () => {
+  it('marks unfinished runs that the queue no longer holds as failed, so nothing stays running', async () => {
     const { Run } = await import('../../api/runs/run.model');
+    const { worker } = await testDb();
     const stray = await Run.create({ stockId: (await Dataset.findByPk(crabData))!.stockId, datasetId: crabData, model: 'schaefer', options: {} as never, status: 'running', stage: null, engineVersion: '0.1.0', results: null, error: null, durationMs: null, createdBy: 1, startedAt: new Date(), finishedAt: null });
-    expect(await RunQueue.recoverInterrupted()).toBeGreaterThanOrEqual(1);
+    await Run.sequelize!.query('UPDATE runs SET created_at = ? WHERE id = ?', { replacements: [new Date(Date.now() - 3_600_000), stray.id] });
+    expect(await worker.sweep()).toBeGreaterThanOrEqual(1);
     await stray.reload();
     expect(stray.status).toBe('failed');
-    expect(stray.error).toContain('server stopped');
+    expect(stray.error).toContain('queue no longer holds this run');
+    expect(stray.finishedAt).not.toBeNull();
   });
 });

@@ -32,3 +32,28 @@ export async function spawnServer(port: number, env: NodeJS.ProcessEnv = {}): Pr
     await new Promise((r) => setTimeout(r, 100));
   }
 }
+
+/** Spawns a run worker process (api/worker.ts); resolves once it says it is taking runs. */
+export async function spawnWorker(env: NodeJS.ProcessEnv = {}): Promise<{ pid: number; stop(signal?: NodeJS.Signals): Promise<void> }> {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'api/worker.ts'], {
+    cwd: ROOT, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  const exited = new Promise<void>((r) => child.once('exit', () => r()));
+  await new Promise<void>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error('the run worker did not start')), 30_000);
+    let out = '';
+    child.stdout!.on('data', (d: Buffer) => {
+      out += d.toString();
+      if (out.includes('is taking runs')) { clearTimeout(timer); resolve(); }
+    });
+    child.once('exit', (code) => { clearTimeout(timer); reject(new Error(`the run worker exited with code ${code}`)); });
+  });
+  child.stdout!.resume();
+  return {
+    pid: child.pid!,
+    stop: async (signal: NodeJS.Signals = 'SIGTERM') => {
+      if (child.exitCode === null && child.signalCode === null) child.kill(signal);
+      await exited;
+    },
+  };
+}

@@ -5,7 +5,9 @@ export const fox: ProductionModel = {
   name: 'fox',
   shape: [],
   depensation: false,
-  stepper: 'odex',
+  stepper: 'taylor',
+  // r·ln K·B − r·B·ln B
+  taylor: ({ r, K }) => ({ a: r * Math.log(K), b: r, q: 1, nonlinearity: 'log' }),
   g: ({ r, K }, B) => (B <= 0 ? 0 : r * B * Math.log(K / B)),
   perCapitaAtZero: () => Infinity,
   dg: ({ r, K }, B) => r * (Math.log(K / Math.max(B, 1e-300)) - 1),

@@ -11,7 +11,9 @@ export const pellaTomlinson: ProductionModel = {
     toNatural: (v) => v, toRelative: (v) => v,
   }],
   depensation: false,
-  stepper: 'odex',
+  stepper: 'taylor',
+  // (r/p)·B − (r/p)·K^(−p)·B^(1+p)
+  taylor: ({ r, K, p = 1 }) => ({ a: r / p, b: (r / p) * Math.pow(K, -p), q: 1 + p, nonlinearity: 'power' }),
   g: ({ r, K, p = 1 }, B) => (B <= 0 ? 0 : (r / p) * B * (1 - Math.pow(B / K, p))),
   perCapitaAtZero: ({ r, p = 1 }) => r / p,
   dg: ({ r, K, p = 1 }, B) => (r / p) * (1 - (1 + p) * Math.pow(Math.max(B, 1e-300) / K, p)),

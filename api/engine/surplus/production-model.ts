@@ -47,8 +47,13 @@ export interface ProductionModel {
   rBounds?: [number, number];
   /** Whether the production curve can be depensatory (per-capita growth rising with biomass somewhere). */
   depensation: boolean;
-  /** Stepping of the annual path: the exact logistic solution, odex, or fixed-step RK4 (fast, held to odex in the specs). */
-  stepper: 'logistic' | 'odex' | 'rk4';
+  /**
+   * Stepping of the annual path: the exact logistic solution, odex, fixed-step RK4, or a Taylor
+   * series (surplus-taylor.ts; needs `taylor`). The fast ones are held to odex in the specs.
+   */
+  stepper: 'logistic' | 'odex' | 'rk4' | 'taylor';
+  /** g(B) = a·B − b·N(B) with N(B) = B^q ('power') or B·ln B ('log'): the form the Taylor stepper expands. */
+  taylor?(p: SurplusParams): { a: number; b: number; q: number; nonlinearity: 'power' | 'log' };
   g(p: SurplusParams, B: number): number;
   dg(p: SurplusParams, B: number): number;
   /** lim g(B)/B as B → 0: the F at which extinction exchanges stability (Infinity when never). */

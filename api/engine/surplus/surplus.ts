@@ -6,6 +6,7 @@
 import { logisticHarvest } from './logistic-harvest';
 import { integrate } from '../numerics/ode';
 import { rk4Scalar } from '../numerics/rk4';
+import { taylorYear } from './surplus-taylor';
 import { productionModel, type SurplusModelName } from './registry';
 import { maximumOf, unfishedEquilibrium } from './equilibria';
 import type { ReferencePoints, SurplusParams } from './production-model';
@@ -60,8 +61,9 @@ const RK4_STEPS = 24;
 /**
  * One year of dB/dt = g(B) − C (or g(B) − F·B). Schaefer under a catch uses the exact solution of
  * the same ODE (why: fits and bootstraps evaluate hundreds of thousands of years; the specs hold it
- * to the odex path at 1e-8); depensation models use fixed-step RK4 (held to odex in the specs);
- * the others are integrated with odex.
+ * to the odex path at 1e-8); Pella-Tomlinson and Fox use a Taylor series (surplus-taylor.ts, held
+ * to odex at 1e-8 in surplus-taylor.spec.ts); depensation models use fixed-step RK4 (held to odex in
+ * the specs); the others are integrated with odex.
  */
 function stepYear(model: SurplusModelName, params: SurplusParams, B: number, C: number, opts: PathOptions): { B: number; collapsed: boolean } {
   const m = productionModel(model);
@@ -69,6 +71,12 @@ function stepYear(model: SurplusModelName, params: SurplusParams, B: number, C: 
   if (m.stepper === 'logistic' && !fishing && !opts.forceOdex) {
     const step = logisticHarvest(params.r, params.K, C, B, 1);
     return { B: step.N, collapsed: step.collapseTime !== null };
+  }
+  if (m.stepper === 'taylor' && m.taylor && !opts.forceOdex) {
+    const { a, b, q, nonlinearity } = m.taylor(params);
+    // a fishing mortality F only lowers the linear coefficient: g(B) − F·B = (a − F)·B − b·N(B)
+    const s = taylorYear(nonlinearity === 'log', fishing ? a - C : a, b, q, fishing ? 0 : C, B);
+    return { B: s.B, collapsed: s.collapsed };
   }
   const rhs = fishing ? (b: number) => m.g(params, b) - C * b : (b: number) => m.g(params, b) - C;
   if (m.stepper === 'rk4' && !opts.forceOdex) {

@@ -5,24 +5,30 @@ import request from 'supertest';
 import { createApp } from '../../../api/app';
 import { type Config, loadConfig } from '../../../api/config';
 import { createSequelize, demoSeeder, schemaMigrator } from '../../../api/db';
+import { RunWorker } from '../../../api/runs/run-processor';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../../seeders/demo-people';
 import type { Role } from '../../../api/users/user.schemas';
 
-let shared: Promise<{ sequelize: Sequelize; config: Config }> | null = null;
+let shared: Promise<{ sequelize: Sequelize; config: Config; worker: RunWorker }> | null = null;
 
 /** The test configuration: the test profile's env, with a high sign-in limit unless overridden. */
 export function testConfig(overrides: Record<string, string> = {}): Config {
   return loadConfig({ ...process.env, SIGNIN_LIMIT_PER_15_MIN: '1000', CLIENT_DIR: '.data/no-client', ...overrides });
 }
 
-/** The shared connection to the test database, migrated and seeded once per run. */
-export function testDb(): Promise<{ sequelize: Sequelize; config: Config }> {
+/**
+ * The shared connection to the test database, migrated and seeded once per run, with one run worker
+ * in this process taking runs from the test Redis (the scale spec starts worker processes of its own).
+ */
+export function testDb(): Promise<{ sequelize: Sequelize; config: Config; worker: RunWorker }> {
   shared ??= (async () => {
     const config = testConfig();
     const sequelize = createSequelize(config);
     await schemaMigrator(sequelize).up();
     await demoSeeder(sequelize).up();
-    return { sequelize, config };
+    const worker = new RunWorker(config, { name: 'spec-worker' });
+    await worker.ready();
+    return { sequelize, config, worker };
   })();
   return shared;
 }
