@@ -14,7 +14,8 @@ import { ApiError } from '../core/errors/api-error';
 import { ReserveStudyForm } from './reserve-study-form';
 import { RunApi } from './run-api';
 
-const SINGLE = [['schaefer', 'Schaefer'], ['pella-tomlinson', 'Pella-Tomlinson'], ['fox', 'Fox'], ['ricker', 'Ricker (spawners and recruits)'],
+const SINGLE = [['schaefer', 'Schaefer'], ['pella-tomlinson', 'Pella-Tomlinson'], ['fox', 'Fox'],
+  ['allee', 'Critical depensation (strong Allee effect)'], ['predation', 'Predation depensation (type III predator)'], ['ricker', 'Ricker (spawners and recruits)'],
   ['beverton-holt', 'Beverton-Holt (spawners and recruits)'], ['reaction-diffusion', 'Reaction-diffusion: reserve study']] as const;
 const LINKED = [['rosenzweig-macarthur', 'Rosenzweig-MacArthur'], ['lotka-volterra', 'Lotka-Volterra (logistic prey)']] as const;
 
@@ -55,6 +56,9 @@ export class RunForm {
     seed: [1, [Validators.required, Validators.min(0)]],
     risk: [0.05, [Validators.required, Validators.min(0.001), Validators.max(0.49)]],
     limit: [0.4, [Validators.required, Validators.min(0), Validators.max(2)]],
+    control: ['catch' as 'catch' | 'F'],
+    errors: ['observation' as 'observation' | 'state-space'],
+    allowAboveK: [false],
     trigger: [0.8, [Validators.required, Validators.min(0.01), Validators.max(3), triggerAboveLimit]],
     fTarget: [1, [Validators.required, Validators.min(0.01), Validators.max(2)]],
     years: [10, [Validators.required, Validators.min(1), Validators.max(50)]],
@@ -99,6 +103,7 @@ export class RunForm {
       const run = await firstValueFrom(this.api.start({
         datasetId: v.datasetId, model: v.model as never, bootstrap: v.bootstrap, seed: v.seed, risk: v.risk, limit: v.limit,
         trigger: v.trigger, fTarget: v.fTarget, years: v.years, processSd: v.processSd,
+        ...(this.linked() ? {} : { control: v.control, errors: v.errors, allowAboveK: v.allowAboveK }),
         candidates: v.candidates.split(',').map((c) => c.trim()).filter(Boolean).map(Number),
         ...(v.model === 'pella-tomlinson' && v.shape ? { shape: v.shape } : {}),
         ...(this.linked() ? { conversion: fixedOrEstimate(v.conversion), saturation: fixedOrEstimate(v.saturation) } : {}),

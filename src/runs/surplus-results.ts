@@ -43,10 +43,28 @@ export class SurplusResults {
     if (!q) return null;
     const f = this.fit();
     return {
-      startYear: f.years[f.years.length - 1]! + 1, unit: this.unit(), limit: this.run().options.limitFraction * f.reference.bMsy,
-      candidates: q.candidates, highlight: Math.round(q.proposal.proposed),
+      // runs stored before the one limit reference point projected against limitFraction
+      startYear: f.years[f.years.length - 1]! + 1, unit: this.unit(), limit: (q.stateMargin ? this.run().options.limit : this.run().options.limitFraction) * f.reference.bMsy,
+      candidates: q.candidates, highlight: q.candidates.reduce((best, c) => (Math.abs(c.catchLevel - q.proposal.proposed) < Math.abs(best - q.proposal.proposed) ? c.catchLevel : best), q.candidates[0]?.catchLevel ?? 0),
     };
   });
+  protected readonly control = computed(() => this.run().options.control ?? 'catch');
+  /** Each control's bifurcations in words; runs stored before the full analysis list the catch fold only. */
+  protected readonly sides = computed(() => {
+    const fold = this.results().fold;
+    const analyses = fold.catch ? [fold.catch, ...(fold.F ? [fold.F] : [])] : [];
+    if (!analyses.length) return [{ control: 'catch' as const, hasFold: true, list: [{ kind: 'fold', at: fold.hStar, biomass: fold.bFold }], hysteresis: false, collapse: '', recovery: '', note: '' }];
+    return analyses.map((a) => {
+      const fmt = (v: number) => (a.control === 'F' ? `F = ${v.toFixed(3)}` : `${Math.round(v).toLocaleString('en-GB')} ${this.unit()}/yr`);
+      return {
+        control: a.control, hasFold: a.bifurcations.some((b) => b.kind === 'fold'), list: a.bifurcations, hysteresis: a.hysteresis,
+        collapse: a.collapse ? fmt(a.collapse.at) : '', recovery: a.recovery ? fmt(a.recovery.at) : '', note: a.recoveryNote,
+      };
+    });
+  });
+  protected levelText(v: number): string {
+    return this.control() === 'F' ? `F = ${v.toFixed(3)}` : `${Math.round(v).toLocaleString('en-GB')} ${this.unit()}`;
+  }
   protected interval(name: string): [number, number] | null {
     const key: Record<string, string> = { r: 'r', K: 'K', MSY: 'msy', 'h*': 'hStar', B_MSY: 'bMsy' };
     return this.results().bootstrap?.intervals[key[name] ?? ''] ?? null;
