@@ -4,7 +4,7 @@ import { dirname, join } from 'node:path';
 import { ticks } from 'd3';
 import PDFDocument from 'pdfkit';
 import type { FoldPoint } from '../engine/surplus/fold';
-import type { ReserveDesignFigures } from '../proposals/reserve-design';
+import type { ReserveDesignFigures } from '../proposals/proposal.schemas';
 import { reserveMapPdf } from './reserve-map-pdf';
 
 const require = createRequire(import.meta.url);

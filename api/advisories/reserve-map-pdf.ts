@@ -1,7 +1,7 @@
 /** The chosen reserve design in an advisory PDF: equilibrium density map (cividis), reserves outlined, legend with units, key figures. */
 import { interpolateCividis } from 'd3';
 import type PDFDocument from 'pdfkit';
-import type { ReserveDesignFigures } from '../proposals/reserve-design';
+import type { ReserveDesignFigures } from '../proposals/proposal.schemas';
 
 type Doc = InstanceType<typeof PDFDocument>;
 const INK = '#0d3b47', MUTED = '#5a6b70', DANGER = '#b3261e';

@@ -2,7 +2,6 @@
 import { z } from 'zod';
 import type { StateMargin } from '../engine/assessment';
 import type { RebuildRow } from '../engine/projection/rebuild';
-import type { ReserveDesignFigures } from './reserve-design';
 
 /** Which design of which reserve-study run a proposal carries (optional). */
 export const reserveDesignRefSchema = z.object({ runId: z.number().int().positive(), index: z.number().int().min(0).max(5) }).strict();
@@ -21,6 +20,34 @@ export const updateProposalSchema = z.object({
 
 export type CreateProposalBody = z.infer<typeof createProposalSchema>;
 export type UpdateProposalBody = z.infer<typeof updateProposalSchema>;
+
+/** A reserve design as frozen with a proposal (copied from its reserve-study run). */
+export interface ReserveDesignFigures {
+  runId: number;
+  name: string;
+  growth: string;
+  params: { r: number; K: number; D: number; A?: number };
+  /** Fishing mortality outside the reserves (1/yr). */
+  fishing: number;
+  areaUnit: 'km' | 'km²';
+  nx: number;
+  ny: number;
+  h: number;
+  cells: number[];
+  reserve: number[];
+  density: number[];
+  reserveArea: number;
+  reserveShare: number;
+  reserveCount: number;
+  total: number;
+  yield: number;
+  spillover: number;
+  persists: boolean;
+  criticalF: number | null;
+  lossKind: 'extinction' | 'fold' | null;
+  recoveryYears: number | null;
+  frontSpeed: number | null;
+}
 
 export interface CandidateFigures {
   catchLevel: number;

@@ -2,33 +2,7 @@
 import { HttpError, NotFoundError } from '../http/http-error';
 import { Run } from '../runs/run.model';
 import type { SpatialRunResults } from '../runs/run.schemas';
-
-export interface ReserveDesignFigures {
-  runId: number;
-  name: string;
-  growth: string;
-  params: { r: number; K: number; D: number; A?: number };
-  /** Fishing mortality outside the reserves (1/yr). */
-  fishing: number;
-  areaUnit: 'km' | 'km²';
-  nx: number;
-  ny: number;
-  h: number;
-  cells: number[];
-  reserve: number[];
-  density: number[];
-  reserveArea: number;
-  reserveShare: number;
-  reserveCount: number;
-  total: number;
-  yield: number;
-  spillover: number;
-  persists: boolean;
-  criticalF: number | null;
-  lossKind: 'extinction' | 'fold' | null;
-  recoveryYears: number | null;
-  frontSpeed: number | null;
-}
+import type { ReserveDesignFigures } from './proposal.schemas';
 
 /** Figures of design `index` of reserve-study run `runId`; the run must belong to the stock and have finished. */
 export async function reserveDesignFigures(stockId: number, ref: { runId: number; index: number }): Promise<ReserveDesignFigures> {

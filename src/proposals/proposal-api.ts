@@ -7,8 +7,8 @@ import type { ProposalListItem, ProposalView } from '../../api/proposals/proposa
 export class ProposalApi {
   private readonly http = inject(HttpClient);
 
-  create(runId: number, quota: number, rationale: string): Observable<ProposalView> {
-    return this.http.post<{ proposal: ProposalView }>('/api/proposals', { runId, quota, rationale }).pipe(map((r) => r.proposal));
+  create(runId: number, quota: number, rationale: string, reserveDesign: { runId: number; index: number } | null = null): Observable<ProposalView> {
+    return this.http.post<{ proposal: ProposalView }>('/api/proposals', { runId, quota, rationale, ...(reserveDesign ? { reserveDesign } : {}) }).pipe(map((r) => r.proposal));
   }
 
   update(id: number, patch: { quota?: number; rationale?: string }): Observable<ProposalView> {

@@ -20,11 +20,13 @@ import { Caution } from '../shared/caution';
 import { ChartFrame } from '../shared/charts/chart-frame';
 import { ModelNamePipe } from '../shared/sig.pipe';
 import { ProposalApi } from './proposal-api';
+import { ProposalReserveDesign } from './proposal-reserve-design';
+import { ReserveDesignPicker } from './reserve-design-picker';
 
 /** Drafts a proposal from a run (route proposals/new?run=ID) or shows, edits and submits one (proposals/:id). */
 @Component({
   selector: 'bm-proposal-page',
-  imports: [Caution, FormsModule, RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, ChartFrame, BifurcationChart, BoardPanel],
+  imports: [Caution, FormsModule, RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, ChartFrame, BifurcationChart, BoardPanel, ReserveDesignPicker, ProposalReserveDesign],
   templateUrl: './proposal-page.html',
   styleUrl: './proposal-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -46,6 +48,7 @@ export class ProposalPage {
   protected readonly results = computed(() => this.runDetail()?.results as SurplusRunResults | undefined);
   protected readonly editable = computed(() => this.auth.hasRole('assessor') && (this.proposal()?.status ?? 'draft') === 'draft');
   protected readonly chart = signal<BifurcationData | null>(null);
+  protected readonly reserveDesign = signal<{ runId: number; index: number } | null>(null);
 
   constructor() {
     effect(() => void this.load(this.id(), this.run()));
@@ -79,7 +82,7 @@ export class ProposalPage {
       const p = this.proposal();
       const saved = p
         ? await firstValueFrom(this.api.update(p.id, { quota: this.quota, rationale: this.rationale }))
-        : await firstValueFrom(this.api.create(this.runDetail()!.run.id, this.quota, this.rationale));
+        : await firstValueFrom(this.api.create(this.runDetail()!.run.id, this.quota, this.rationale, this.reserveDesign()));
       this.proposal.set(saved);
       this.notifier.info('Draft saved; the figures were recomputed for this quota.');
       if (!p) void this.router.navigate(['/proposals', saved.id], { replaceUrl: true });
