@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
-import { FormArray, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -51,7 +51,7 @@ const COAST_LINE = /^\s*([^:]{1,60}):\s*((\d+(\.\d+)?\s*-\s*\d+(\.\d+)?\s*)(,\s*
           <mat-form-field subscriptSizing="dynamic"><mat-label>Design name</mat-label><input matInput formControlName="name" /></mat-form-field>
           <mat-form-field class="bm-wide"><mat-label>Mask CSV: 0 not habitat, 1 fished, 2 reserve; one line per row</mat-label>
             <textarea matInput rows="6" formControlName="maskCsv" class="bm-mono" [attr.data-testid]="'rd-mask-' + i"></textarea>
-            @for (e of serverFields()['spatial.designs.' + i + '.maskCsv'] ?? []; track $index) { <mat-hint class="bm-err">{{ e }}</mat-hint> }
+            @for (e of maskErrors(i); track $index) { <mat-hint class="bm-err">{{ e }}</mat-hint> }
           </mat-form-field>
           <div class="bm-row">
             <label mat-stroked-button class="bm-upload"><mat-icon>upload_file</mat-icon>Load a mask file<input type="file" accept=".csv,text/csv,text/plain" (change)="load($event, i)" hidden /></label>
@@ -70,7 +70,7 @@ const COAST_LINE = /^\s*([^:]{1,60}):\s*((\d+(\.\d+)?\s*-\s*\d+(\.\d+)?\s*)(,\s*
 export class ReserveStudyForm {
   readonly serverFields = input<Record<string, string[]>>({});
   private readonly fb = inject(NonNullableFormBuilder);
-  protected readonly gridDesigns: FormArray = this.fb.array([this.gridDesign('Design A')]);
+  protected readonly gridDesigns = this.fb.array([this.gridDesign('Design A')]);
   readonly form = this.fb.group({
     growth: ['logistic' as 'logistic' | 'allee'],
     r: [0.5, [Validators.required, Validators.min(0.0001), Validators.max(20)]],
@@ -88,6 +88,10 @@ export class ReserveStudyForm {
 
   private gridDesign(name: string) {
     return this.fb.group({ name: [name, [Validators.required, Validators.maxLength(60)]], maskCsv: ['', Validators.required] });
+  }
+
+  protected maskErrors(i: number): string[] {
+    return this.serverFields()[`spatial.designs.${i}.maskCsv`] ?? [];
   }
 
   protected addGridDesign(): void {
@@ -114,7 +118,7 @@ export class ReserveStudyForm {
         const reserves = rest.split(',').map((p) => p.trim()).filter(Boolean).map((p) => p.split('-').map(Number) as [number, number]);
         return { name, reserves };
       })
-      : (v.designs as { name: string; maskCsv: string }[]).map((d) => ({ name: d.name, maskCsv: d.maskCsv }));
+      : v.designs.map((d) => ({ name: d.name, maskCsv: d.maskCsv }));
     return {
       growth: v.growth, r: v.r, K: v.K, D: v.D, ...(v.growth === 'allee' && v.A ? { A: v.A } : {}), fishing: v.fishing,
       habitat: coast ? { kind: 'coast', length: v.length, cells: v.cells } : { kind: 'grid', cellKm: v.cellKm },
