@@ -2,7 +2,8 @@
 import { bootstrapFit } from '../assessment';
 import { fitSurplusRaw, surplusProblem } from '../surplus/fit-surplus';
 import { summariseFit } from '../fit/fit-summary';
-import { SINGLE_STOCKS, simulateSingle } from '../../../seeders/series-generator';
+import { fitPredatorPrey } from '../linked/fit-predator-prey';
+import { SINGLE_STOCKS, SPRAT_COD_TRUTH, demoSeries, simulateSingle } from '../../../seeders/series-generator';
 
 function time<T>(f: () => T, minMs = 400): { ms: number; runs: number; last: T } {
   let last = f();
@@ -33,8 +34,25 @@ rows.push(['1,000 bootstrap refits on 2 worker threads', `${((performance.now() 
 const pt = SINGLE_STOCKS.find((s) => s.code === 'silver-smelt')!;
 const ptSim = simulateSingle(pt, 7, 40);
 const ptSeries = { years: ptSim.years, catches: ptSim.catches, indices: [{ name: 'acoustic', values: ptSim.index, cv: null }] };
-const ptFit = time(() => fitSurplusRaw(ptSeries, { model: 'pella-tomlinson', shape: 0.6 }), 1000);
-rows.push(['one Pella-Tomlinson fit (p fixed, odex), 40 years', `${ptFit.ms.toFixed(0)} ms`, '—']);
+// side by side on the same 40-year series: the Taylor path against the Schaefer closed form
+const sFit = time(() => fitSurplusRaw(ptSeries, { model: 'schaefer' }), 1500);
+const ptFit = time(() => fitSurplusRaw(ptSeries, { model: 'pella-tomlinson', shape: 0.6 }), 1500);
+const foxFit = time(() => fitSurplusRaw(ptSeries, { model: 'fox' }), 1500);
+rows.push(['Schaefer fit, same 40 years as the two below', `${sFit.ms.toFixed(1)} ms`, '—']);
+rows.push(['Pella-Tomlinson fit (p fixed, Taylor path), 40 years', `${ptFit.ms.toFixed(1)} ms`, '—']);
+rows.push(['  ratio to Schaefer', `${(ptFit.ms / sFit.ms).toFixed(2)}×`, '≤ 3×']);
+rows.push(['Fox fit (Taylor path), 40 years', `${foxFit.ms.toFixed(1)} ms`, '—']);
+rows.push(['  ratio to Schaefer', `${(foxFit.ms / sFit.ms).toFixed(2)}×`, '≤ 3×']);
+
+const ptSummary = summariseFit(ptSeries, ptFit.last);
+const t1 = performance.now();
+await bootstrapFit(ptSeries, { model: 'pella-tomlinson', shape: 0.6 }, ptSummary, { replicates: 1000, seed: 1, workers: 2 });
+rows.push(['1,000 Pella-Tomlinson bootstrap refits on 2 worker threads', `${((performance.now() - t1) / 1000).toFixed(2)} s`, '< 10 s']);
+
+const linked = demoSeries()[SPRAT_COD_TRUTH.code]!;
+const t2 = performance.now();
+fitPredatorPrey(linked, { model: 'rosenzweig-macarthur' });
+rows.push(['one Rosenzweig-MacArthur fit to the sprat and cod surveys', `${((performance.now() - t2) / 1000).toFixed(2)} s`, '< 1 s']);
 
 const w = [Math.max(...rows.map((r) => r[0].length)), 12, 9];
 console.log(`${'measure'.padEnd(w[0])}  ${'time'.padStart(w[1])}  ${'aim'.padStart(w[2])}`);
