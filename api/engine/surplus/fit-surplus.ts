@@ -180,6 +180,16 @@ export interface RawFit {
   startPoints: number[][];
 }
 
+/** The free vector with K multiplied by `factor` (other parameters unchanged), clamped to K's bounds. */
+function scaledK(problem: SurplusProblem, u: number[], factor: number): number[] {
+  const i = problem.bounds.findIndex((b) => b.name === 'K');
+  if (i < 0) return u;
+  const b = problem.bounds[i]!;
+  const w = u.slice();
+  w[i] = toFree(b, Math.min(b.hi * (1 - 1e-9), toNatural(b, u[i]!) * factor));
+  return w;
+}
+
 /** Runs the starts and a final polish from the best; no intervals (see summariseFit). */
 export function fitSurplusRaw(series: StockSeries, opts: SurplusFitOptions): RawFit {
   const problem = surplusProblem(series, opts);
@@ -196,7 +206,8 @@ export function fitSurplusRaw(series: StockSeries, opts: SurplusFitOptions): Raw
   if (!opts.initial && opts.fixed?.K === undefined && Object.keys(problem.fixedQ).length === 0) {
     const { biomass } = problem.path(best.x);
     const maxRate = Math.max(...problem.catches.map((c, t) => c / Math.max(biomass[t]!, 1e-300)));
-    if (!(maxRate >= NEGLIGIBLE_HARVEST_RATE)) throw new FitInputError('NO_REMOVALS', NO_REMOVALS);
+    // negligible removals leave the likelihood flat in K: ten times the biomass scale fits as well
+    if (!(maxRate >= NEGLIGIBLE_HARVEST_RATE) && Math.abs(problem.nll(scaledK(problem, best.x, 10)) - best.fx) < 0.01) throw new FitInputError('NO_REMOVALS', NO_REMOVALS);
   }
   return {
     problem, u: best.x, nll: best.fx,

@@ -5,7 +5,7 @@
  */
 import { createRng } from '../numerics/random';
 import { logisticHarvest } from '../surplus/logistic-harvest';
-import { fitSurplusRaw } from '../surplus/fit-surplus';
+import { FitInputError, fitSurplusRaw } from '../surplus/fit-surplus';
 import { PROFILE_DROP_95, profileInterval, smallSampleDrop } from '../fit/profile';
 import type { StockSeries } from '../data/series';
 
@@ -62,7 +62,16 @@ export function coverageStudy(t: CoverageTruth, n: number, seed: number, errors:
   const rows = QUANTITIES.map((quantity) => ({ quantity, covered: 0, total: 0, below: 0, above: 0 }));
   for (let k = 0; k < n; k++) {
     const series = simulateDataSet(t, (seed + 104_729 * k) >>> 0);
-    const fit = fitSurplusRaw(series, { model: 'schaefer', errors });
+    let fit: ReturnType<typeof fitSurplusRaw>;
+    try {
+      fit = fitSurplusRaw(series, { model: 'schaefer', errors });
+    } catch (err) {
+      // a data set the fit refuses yields no interval: it counts as a miss
+      if (!(err instanceof FitInputError)) throw err;
+      for (const row of rows) row.total++;
+      onProgress?.(k + 1);
+      continue;
+    }
     const threshold = errors === 'state-space' ? PROFILE_DROP_95 : smallSampleDrop(fit.problem.nObs, fit.problem.bounds.length + 1);
     const intervals = new Map<string, { lower: number; upper: number }>();
     for (const row of rows) {
