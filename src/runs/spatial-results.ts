@@ -77,7 +77,7 @@ export class SpatialResults {
   });
   protected readonly yieldLines = computed<XyLine[]>(() => this.results().designs.map((d, i) => ({
     label: d.name, colour: DESIGN_COLOURS[i % DESIGN_COLOURS.length]!, dash: i % 2 ? '6 3' : undefined,
-    points: d.sweep.points.filter((p) => p.total > 0 || p.F === 0).map((p) => [p.F, p.yield] as [number, number]),
+    points: d.sweep.points.filter((p) => p.F === 0 || p.total > 1e-6 * (d.sweep.points[0]?.total ?? 0)).map((p) => [p.F, p.yield] as [number, number]),
   })));
   protected readonly frontLines = computed<XyLine[]>(() => this.results().designs.filter((d) => d.front && d.front.track.length).map((d, i) => ({
     label: d.name, colour: DESIGN_COLOURS[i % DESIGN_COLOURS.length]!, dash: i % 2 ? '6 3' : undefined,
