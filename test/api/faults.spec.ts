@@ -12,7 +12,7 @@ import { Run } from '../../api/runs/run.model';
 import { profile } from '../../api/scripts/local-env';
 import { startMariaDb } from '../../api/scripts/mariadb';
 import { Stock } from '../../api/stocks/stock.model';
-import { spawnServer, type RunningServer } from '../support/server-process';
+import { spawnServer, spawnWorker, type RunningServer } from '../support/server-process';
 import { submittedProposal } from './support/decided';
 import { finished, waitForRun } from './support/runs';
 import { signIn, testDb, type SignedIn } from './support/test-app';
@@ -47,14 +47,17 @@ async function restartDatabase(base: string): Promise<void> {
 
 describe('database outage under a live server', () => {
   let server: RunningServer;
+  let worker: Awaited<ReturnType<typeof spawnWorker>>;
   let base: string;
   beforeAll(async () => {
     await testDb();
     server = await spawnServer(PORT, { CLIENT_DIR: '.data/no-client' });
+    worker = await spawnWorker();
     base = server.base;
   });
   afterAll(async () => {
     if (!(await dbListening())) await startMariaDb(db);
+    await worker.stop();
     await server.stop();
   });
 
