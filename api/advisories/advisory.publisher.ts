@@ -9,7 +9,10 @@ import { figuresFor, quotaProjection } from '../proposals/proposal.service';
 import type { Proposal } from '../proposals/proposal.model';
 import { Region } from '../regions/region.model';
 import { Run } from '../runs/run.model';
-import type { SurplusRunResults } from '../runs/run.schemas';
+import type { RunResults, SurplusRunResults } from '../runs/run.schemas';
+import type { ProposalFigures } from '../proposals/proposal.schemas';
+import { pairFigures, pairStudyFor } from '../proposals/pair-figures';
+import { renderPairAdvisoryPdf } from './pair-advisory-pdf';
 import { Stock } from '../stocks/stock.model';
 import { Subscription } from '../subscriptions/subscription.models';
 import { User } from '../users/user.model';
@@ -39,41 +42,64 @@ export class AdvisoryPublisher {
     const { decision, proposal, limit, override, actorId } = p;
     const supersedes = p.supersedes ?? null;
     const run = (await Run.findByPk(proposal.runId, { transaction: t }))!;
-    const results = JSON.parse(run.results!) as SurplusRunResults;
+    const parsed = JSON.parse(run.results!) as RunResults;
     const stock = (await Stock.findByPk(proposal.stockId, { transaction: t }))!;
     const region = (await Region.findByPk(stock.regionId, { transaction: t }))!;
     const chair = (await User.findByPk(decision.decidedBy, { transaction: t }))!;
     const actor = actorId === chair.id ? chair : (await User.findByPk(actorId, { transaction: t }))!;
     const original = supersedes ? (await Decision.findByPk(supersedes.advisory.decisionId, { transaction: t }))! : null;
-    // one projection serves both the figures and the chart of the PDF
-    const proj = quotaProjection(run, results, limit);
-    const f = figuresFor(run, results, limit, stock.unit, proj);
     const year = new Date().getUTCFullYear();
     const seq = (await Advisory.count({ transaction: t })) + 1;
     const docId = `BM-${year}-${stock.code.toUpperCase()}-${String(seq).padStart(4, '0')}`;
     const publishedAt = new Date();
-    const pdf = await renderAdvisoryPdf({
-      docId, stockName: stock.name, regionName: region.name, unit: stock.unit, publishedAt, limit, proposalQuota: proposal.quota, override,
-      supersedes: supersedes ? { docId: supersedes.advisory.docId, reason: supersedes.reason } : null,
-      correction: supersedes && original ? {
-        kind: supersedes.kind, reason: supersedes.reason, votes: supersedes.votes, byName: actor.name, at: publishedAt, proposalId: proposal.id,
-        previous: { docId: supersedes.advisory.docId, limit: supersedes.advisory.approvedLimit, votes: original.votes, decidedAt: original.createdAt },
-      } : null,
-      figures: {
-        marginAbs: f.marginToFold.absolute, marginFrac: f.marginToFold.fraction, marginLowerAbs: f.marginToFoldLower.absolute, marginLowerFrac: f.marginToFoldLower.fraction,
-        hStar: f.foldHarvest, msy: f.msy, bOverBmsy: f.bOverBmsy, fOverFmsy: f.fOverFmsy, pPassFold: f.atQuota.pPassFold, pBelowLimit: f.atQuota.pBelowLimit, projectionYears: f.projectionYears,
-        ...(f.stateMargin ? { stateMargin: f.stateMargin } : {}), control: f.control ?? 'catch',
-      },
-      decision: { reason: decision.reason, votes: decision.votes, chairName: chair.name, decidedAt: decision.createdAt },
-      fold: { table: results.fold.table, hStar: results.fold.hStar, bFold: results.fold.bFold, band: { p5: results.bootstrap!.hStar.p5, p95: results.bootstrap!.hStar.p95 } },
-      catches: results.fit.catches,
-      projection: { startYear: results.fit.years[results.fit.years.length - 1]! + 1, median: proj.median, lower: proj.lower, upper: proj.upper, limitRef: f.limitFraction * results.fit.reference.bMsy },
-      ...(proposal.figures.reserveDesign ? { reserveDesign: proposal.figures.reserveDesign } : {}),
-    });
+    let f: ProposalFigures;
+    let pdf: Buffer;
+    if (parsed.kind === 'predator-prey') {
+      // a pair moves along its ray: the predator limit keeps the proposed ratio to the prey limit
+      const predatorLimit = (proposal.predatorQuota ?? 0) * (limit / proposal.quota);
+      const study = pairStudyFor(run, parsed, limit, predatorLimit);
+      f = pairFigures(run, parsed, study, stock.unit);
+      const last = parsed.years.length - 1;
+      pdf = await renderPairAdvisoryPdf({
+        docId, stockName: stock.name, regionName: region.name, unit: stock.unit, publishedAt, preyLimit: limit, predatorLimit, override,
+        supersedes: supersedes ? { docId: supersedes.advisory.docId, reason: supersedes.reason } : null,
+        pair: f.pair!, rayMedian: f.foldHarvest.median, projectionYears: f.projectionYears,
+        decision: { reason: decision.reason, votes: decision.votes, chairName: chair.name, decidedAt: decision.createdAt },
+        plane: parsed.catchPlane!, current: { preyCatch: parsed.preyCatch[last]!, predatorCatch: parsed.predatorCatch[last]! }, cloud: study.cloud,
+        projection: { startYear: parsed.years[last]! + 1, prey: study.projection.prey, predator: study.projection.predator },
+        fixed: parsed.fit.fixed ?? [],
+      });
+    } else {
+      const results = parsed as SurplusRunResults;
+      // one projection serves both the figures and the chart of the PDF
+      const proj = quotaProjection(run, results, limit);
+      f = figuresFor(run, results, limit, stock.unit, proj);
+      pdf = await renderAdvisoryPdf({
+        docId, stockName: stock.name, regionName: region.name, unit: stock.unit, publishedAt, limit, proposalQuota: proposal.quota, override,
+        supersedes: supersedes ? { docId: supersedes.advisory.docId, reason: supersedes.reason } : null,
+        correction: supersedes && original ? {
+          kind: supersedes.kind, reason: supersedes.reason, votes: supersedes.votes, byName: actor.name, at: publishedAt, proposalId: proposal.id,
+          previous: { docId: supersedes.advisory.docId, limit: supersedes.advisory.approvedLimit, votes: original.votes, decidedAt: original.createdAt },
+        } : null,
+        figures: {
+          marginAbs: f.marginToFold.absolute, marginFrac: f.marginToFold.fraction, marginLowerAbs: f.marginToFoldLower.absolute, marginLowerFrac: f.marginToFoldLower.fraction,
+          hStar: f.foldHarvest, msy: f.msy, bOverBmsy: f.bOverBmsy, fOverFmsy: f.fOverFmsy, pPassFold: f.atQuota.pPassFold, pBelowLimit: f.atQuota.pBelowLimit, projectionYears: f.projectionYears,
+          ...(f.stateMargin ? { stateMargin: f.stateMargin } : {}), control: f.control ?? 'catch',
+        },
+        decision: { reason: decision.reason, votes: decision.votes, chairName: chair.name, decidedAt: decision.createdAt },
+        fold: { table: results.fold.table, hStar: results.fold.hStar, bFold: results.fold.bFold, band: { p5: results.bootstrap!.hStar.p5, p95: results.bootstrap!.hStar.p95 } },
+        catches: results.fit.catches,
+        projection: { startYear: results.fit.years[results.fit.years.length - 1]! + 1, median: proj.median, lower: proj.lower, upper: proj.upper, limitRef: f.limitFraction * results.fit.reference.bMsy },
+        ...(proposal.figures.reserveDesign ? { reserveDesign: proposal.figures.reserveDesign } : {}),
+      });
+    }
     const sha256 = createHash('sha256').update(pdf).digest('hex');
-    const title = `${stock.name}: ${n0(limit)} ${stock.unit} per year${supersedes ? ' (corrected)' : ''}`;
-    const margin = `${n0(f.marginToFold.absolute)} ${stock.unit} (${(f.marginToFold.fraction * 100).toFixed(1)}%) below the median fold harvest`;
-    const opening = !supersedes ? `The quota board approved a harvest limit of ${n0(limit)} ${stock.unit} per year for ${stock.name} (${region.name})`
+    const pairText = f.pair ? ` of prey and ${n0(f.pair.predatorCatch)} ${stock.unit} of predator` : '';
+    const title = `${stock.name}: ${n0(limit)} ${stock.unit}${pairText} per year${supersedes ? ' (corrected)' : ''}`;
+    const margin = f.pair
+      ? `with a ${(f.pair.pCross * 100).toFixed(1)}% probability that the pair lies beyond a fold, Hopf or predator-loss curve of the catch plane`
+      : `${n0(f.marginToFold.absolute)} ${stock.unit} (${(f.marginToFold.fraction * 100).toFixed(1)}%) below the median fold harvest`;
+    const opening = !supersedes ? `The quota board approved a harvest limit of ${n0(limit)} ${stock.unit}${pairText} per year for ${stock.name} (${region.name})`
       : supersedes.kind === 'chair'
         ? `The chair of the quota board corrected the harvest limit for ${stock.name} (${region.name}) from ${n0(supersedes.advisory.approvedLimit)} to ${n0(limit)} ${stock.unit} per year, without a board vote, as the board's rules allow`
         : `By a new vote, the quota board corrected the harvest limit for ${stock.name} (${region.name}) from ${n0(supersedes.advisory.approvedLimit)} to ${n0(limit)} ${stock.unit} per year`;

@@ -11,6 +11,8 @@ export class Proposal extends Model<InferAttributes<Proposal>, InferCreationAttr
   declare revisesId: number | null;
   declare status: 'draft' | 'submitted';
   declare quota: number;
+  /** Predator catch of a pair proposal on linked stocks (the prey catch is `quota`); null for single stocks. */
+  declare predatorQuota: CreationOptional<number | null>;
   declare rationale: string;
   declare figures: ProposalFigures;
   declare createdBy: number;
@@ -20,7 +22,7 @@ export class Proposal extends Model<InferAttributes<Proposal>, InferCreationAttr
 
   toView(createdByName: string | null = null): ProposalView {
     return {
-      id: this.id, stockId: this.stockId, runId: this.runId, revisesId: this.revisesId, status: this.status, quota: this.quota,
+      id: this.id, stockId: this.stockId, runId: this.runId, revisesId: this.revisesId, status: this.status, quota: this.quota, predatorQuota: this.predatorQuota ?? null,
       rationale: this.rationale, figures: this.figures, createdBy: this.createdBy, createdByName,
       submittedAt: this.submittedAt?.toISOString() ?? null, createdAt: this.createdAt.toISOString(), updatedAt: this.updatedAt.toISOString(),
     };
@@ -35,6 +37,7 @@ export class Proposal extends Model<InferAttributes<Proposal>, InferCreationAttr
         revisesId: { type: DataTypes.INTEGER, allowNull: true, field: 'revises_id' },
         status: { type: DataTypes.ENUM('draft', 'submitted'), allowNull: false },
         quota: { type: DataTypes.DOUBLE, allowNull: false },
+        predatorQuota: { type: DataTypes.DOUBLE, allowNull: true, field: 'predator_quota' },
         rationale: { type: DataTypes.TEXT, allowNull: false },
         figures: { type: DataTypes.JSON, allowNull: false },
         createdBy: { type: DataTypes.INTEGER, allowNull: false, field: 'created_by' },

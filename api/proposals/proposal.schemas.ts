@@ -9,14 +9,17 @@ export const reserveDesignRefSchema = z.object({ runId: z.number().int().positiv
 export const createProposalSchema = z.object({
   runId: z.number().int().positive(),
   quota: z.number().positive('the quota must be above zero').max(1e9),
+  /** Linked stocks: the predator catch proposed together with the prey catch (`quota`). */
+  predatorQuota: z.number().min(0, 'the predator catch cannot be negative').max(1e9).optional(),
   rationale: z.string().trim().min(20, 'give the reasoning in at least 20 characters').max(5000),
   reserveDesign: reserveDesignRefSchema.optional(),
 }).strict();
 
 export const updateProposalSchema = z.object({
   quota: z.number().positive('the quota must be above zero').max(1e9).optional(),
+  predatorQuota: z.number().min(0, 'the predator catch cannot be negative').max(1e9).optional(),
   rationale: z.string().trim().min(20, 'give the reasoning in at least 20 characters').max(5000).optional(),
-}).strict().refine((v) => v.quota !== undefined || v.rationale !== undefined, { message: 'nothing to change' });
+}).strict().refine((v) => v.quota !== undefined || v.rationale !== undefined || v.predatorQuota !== undefined, { message: 'nothing to change' });
 
 export type CreateProposalBody = z.infer<typeof createProposalSchema>;
 export type UpdateProposalBody = z.infer<typeof updateProposalSchema>;
@@ -87,6 +90,27 @@ export interface ProposalFigures {
   engineProposal: number;
   /** The reserve design chosen with the quota, when the proposal carries one. */
   reserveDesign?: ReserveDesignFigures;
+  /**
+   * Linked stocks: the pair's margins in the catch plane. The single-stock fields then read along the
+   * ray from no catch through the pair, in prey catch: foldHarvest is where the replicates' rays meet
+   * their first curve (fold, Hopf or predator loss).
+   */
+  pair?: PairFigures;
+}
+
+export interface PairFigures {
+  preyCatch: number;
+  predatorCatch: number;
+  preyAxis: { kind: string; at: number | null; margin: number | null };
+  predatorAxis: { kind: string; at: number | null; margin: number | null };
+  pCross: number;
+  pCrossByKind: Record<string, number>;
+  pPreyBelowLimit: number;
+  pPredatorBelowLimit: number;
+  pPreyLost: number;
+  pPredatorLost: number;
+  preyEnd: { median: number; lower: number; upper: number };
+  predatorEnd: { median: number; lower: number; upper: number };
 }
 
 export interface ProposalView {
@@ -96,6 +120,7 @@ export interface ProposalView {
   revisesId: number | null;
   status: 'draft' | 'submitted';
   quota: number;
+  predatorQuota: number | null;
   rationale: string;
   figures: ProposalFigures;
   createdBy: number;

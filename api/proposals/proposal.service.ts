@@ -6,7 +6,8 @@ import { projectLevel, stateMarginAt } from '../engine/assessment';
 import type { SurplusModelName } from '../engine/surplus/surplus';
 import { ConflictError, HttpError, NotFoundError } from '../http/http-error';
 import { Run } from '../runs/run.model';
-import type { SurplusRunResults } from '../runs/run.schemas';
+import type { RunResults, SurplusRunResults } from '../runs/run.schemas';
+import { pairFigures, pairStudyFor, proposableLinked } from './pair-figures';
 import type { MailSender } from '../mail/mail-sender';
 import { OutboxMail } from '../mail/outbox.model';
 import { Stock } from '../stocks/stock.model';
@@ -15,6 +16,21 @@ import { Proposal } from './proposal.model';
 import { listItems } from '../board/proposal-standing';
 import { reserveDesignFigures } from './reserve-design';
 import type { CandidateFigures, CreateProposalBody, ProposalFigures, ProposalListItem, ProposalView, UpdateProposalBody } from './proposal.schemas';
+
+/** Figures for a proposal from its run: a single-stock quota, or a pair of catches on linked stocks. */
+async function runFigures(runId: number, quota: number, predatorQuota: number | null | undefined, unit: string | null): Promise<{ run: Run; figures: ProposalFigures; predatorQuota: number | null }> {
+  const run = await Run.findByPk(runId);
+  if (!run) throw new NotFoundError('Run');
+  const results = run.results ? (JSON.parse(run.results) as RunResults) : null;
+  const u = unit ?? (await Stock.findByPk(run.stockId))!.unit;
+  if (run.status === 'succeeded' && results?.kind === 'predator-prey') {
+    const linked = proposableLinked(run, results, predatorQuota);
+    return { run, figures: pairFigures(run, linked, pairStudyFor(run, linked, quota, predatorQuota!), u), predatorQuota: predatorQuota! };
+  }
+  if (predatorQuota !== undefined && predatorQuota !== null) throw new HttpError(422, 'NOT_LINKED', 'A predator catch belongs to proposals for linked stocks only.', { predatorQuota: ['not for a single stock'] });
+  const { results: single } = await surplusResults(runId);
+  return { run, figures: figuresFor(run, single, quota, u), predatorQuota: null };
+}
 
 async function surplusResults(runId: number): Promise<{ run: Run; results: SurplusRunResults }> {
   const run = await Run.findByPk(runId);
@@ -62,17 +78,15 @@ export class ProposalService {
   constructor(private readonly sequelize: Sequelize, private readonly mail: MailSender | null = null, private readonly publicUrl = '') {}
 
   async create(actorId: number, body: CreateProposalBody, revisesId: number | null = null, keepDesign?: ProposalFigures['reserveDesign']): Promise<ProposalView> {
-    const { run, results } = await surplusResults(body.runId);
-    const stock = await Stock.findByPk(run.stockId);
-    const figures = figuresFor(run, results, body.quota, stock!.unit);
+    const { run, figures, predatorQuota } = await runFigures(body.runId, body.quota, body.predatorQuota, null);
     if (keepDesign) figures.reserveDesign = keepDesign;
     else if (body.reserveDesign) figures.reserveDesign = await reserveDesignFigures(run.stockId, body.reserveDesign);
     return this.sequelize.transaction(async (t) => {
       const p = await Proposal.create({
-        stockId: run.stockId, runId: run.id, revisesId, status: 'draft', quota: body.quota, rationale: body.rationale,
+        stockId: run.stockId, runId: run.id, revisesId, status: 'draft', quota: body.quota, predatorQuota, rationale: body.rationale,
         figures, createdBy: actorId, submittedAt: null,
       }, { transaction: t });
-      await recordAudit({ actorId, action: revisesId ? 'proposal.revise' : 'proposal.create', entityType: 'proposal', entityId: p.id, after: { quota: p.quota, runId: run.id, revisesId } }, t);
+      await recordAudit({ actorId, action: revisesId ? 'proposal.revise' : 'proposal.create', entityType: 'proposal', entityId: p.id, after: { quota: p.quota, predatorQuota, runId: run.id, revisesId } }, t);
       return this.view(p, t);
     });
   }
@@ -80,15 +94,17 @@ export class ProposalService {
   async update(actorId: number, id: number, body: UpdateProposalBody): Promise<ProposalView> {
     return this.sequelize.transaction(async (t) => {
       const p = await this.draft(id, t);
-      const before = { quota: p.quota, rationale: p.rationale };
+      const before = { quota: p.quota, predatorQuota: p.predatorQuota, rationale: p.rationale };
       const quota = body.quota ?? p.quota;
-      if (body.quota !== undefined) {
-        const { run, results } = await surplusResults(p.runId);
+      let predatorQuota = p.predatorQuota ?? null;
+      if (body.quota !== undefined || body.predatorQuota !== undefined) {
         const design = p.figures.reserveDesign;
-        p.figures = { ...figuresFor(run, results, quota, p.figures.unit), ...(design ? { reserveDesign: design } : {}) };
+        const r = await runFigures(p.runId, quota, body.predatorQuota ?? p.predatorQuota, p.figures.unit);
+        p.figures = { ...r.figures, ...(design ? { reserveDesign: design } : {}) };
+        predatorQuota = r.predatorQuota;
       }
-      await p.update({ quota, rationale: body.rationale ?? p.rationale, figures: p.figures }, { transaction: t });
-      await recordAudit({ actorId, action: 'proposal.update', entityType: 'proposal', entityId: id, before, after: { quota: p.quota, rationale: p.rationale } }, t);
+      await p.update({ quota, predatorQuota, rationale: body.rationale ?? p.rationale, figures: p.figures }, { transaction: t });
+      await recordAudit({ actorId, action: 'proposal.update', entityType: 'proposal', entityId: id, before, after: { quota: p.quota, predatorQuota, rationale: p.rationale } }, t);
       return this.view(p, t);
     });
   }
@@ -105,7 +121,7 @@ export class ProposalService {
         await OutboxMail.create({
           dedupeKey: `proposal-submitted:${id}:user:${member.id}`, toAddress: member.email, advisoryId: null,
           subject: `Quota proposal #${id} for ${stock.name} awaits the board`,
-          body: `A quota proposal of ${Math.round(p.quota).toLocaleString('en-GB')} ${p.figures.unit} per year for ${stock.name} was submitted. Margin to the fold: ${Math.round(p.figures.marginToFold.absolute).toLocaleString('en-GB')} ${p.figures.unit} (${(p.figures.marginToFold.fraction * 100).toFixed(1)}%).\n\nReview, comment and vote in Brinkmark: ${this.publicUrl}/proposals/${id}`,
+          body: `A quota proposal of ${Math.round(p.quota).toLocaleString('en-GB')} ${p.figures.unit} per year${p.predatorQuota != null ? ` of prey and ${Math.round(p.predatorQuota).toLocaleString('en-GB')} ${p.figures.unit} of predator` : ''} for ${stock.name} was submitted. Margin to the fold: ${Math.round(p.figures.marginToFold.absolute).toLocaleString('en-GB')} ${p.figures.unit} (${(p.figures.marginToFold.fraction * 100).toFixed(1)}%).\n\nReview, comment and vote in Brinkmark: ${this.publicUrl}/proposals/${id}`,
           lastError: null, messageId: null, nextAttemptAt: new Date(), sentAt: null,
         }, { transaction: t });
       }
@@ -120,7 +136,7 @@ export class ProposalService {
     const p = await Proposal.findByPk(id);
     if (!p) throw new NotFoundError('Proposal');
     const design = p.figures.reserveDesign;
-    return this.create(actorId, { runId: p.runId, quota: p.quota, rationale: p.rationale }, p.id, design);
+    return this.create(actorId, { runId: p.runId, quota: p.quota, predatorQuota: p.predatorQuota ?? undefined, rationale: p.rationale }, p.id, design);
   }
 
   async get(id: number): Promise<ProposalView> {
