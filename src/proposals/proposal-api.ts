@@ -7,11 +7,11 @@ import type { ProposalListItem, ProposalView } from '../../api/proposals/proposa
 export class ProposalApi {
   private readonly http = inject(HttpClient);
 
-  create(runId: number, quota: number, rationale: string, reserveDesign: { runId: number; index: number } | null = null): Observable<ProposalView> {
-    return this.http.post<{ proposal: ProposalView }>('/api/proposals', { runId, quota, rationale, ...(reserveDesign ? { reserveDesign } : {}) }).pipe(map((r) => r.proposal));
+  create(runId: number, quota: number, rationale: string, reserveDesign: { runId: number; index: number } | null = null, predatorQuota?: number): Observable<ProposalView> {
+    return this.http.post<{ proposal: ProposalView }>('/api/proposals', { runId, quota, rationale, ...(reserveDesign ? { reserveDesign } : {}), ...(predatorQuota !== undefined ? { predatorQuota } : {}) }).pipe(map((r) => r.proposal));
   }
 
-  update(id: number, patch: { quota?: number; rationale?: string }): Observable<ProposalView> {
+  update(id: number, patch: { quota?: number; predatorQuota?: number; rationale?: string }): Observable<ProposalView> {
     return this.http.patch<{ proposal: ProposalView }>(`/api/proposals/${id}`, patch).pipe(map((r) => r.proposal));
   }
 

@@ -9,12 +9,13 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { firstValueFrom } from 'rxjs';
 import type { ProposalView } from '../../api/proposals/proposal.schemas';
-import type { SurplusRunResults } from '../../api/runs/run.schemas';
+import type { PredatorPreyRunResults, SurplusRunResults } from '../../api/runs/run.schemas';
 import { AuthStore } from '../core/auth/auth-store';
 import { ApiError } from '../core/errors/api-error';
 import { Notifier } from '../core/errors/notifier';
 import { RunApi, type RunDetail } from '../runs/run-api';
 import { BifurcationChart, type BifurcationData } from '../shared/charts/bifurcation-chart';
+import { CatchPlaneChart, type CatchPlaneData } from '../shared/charts/catch-plane-chart';
 import { BoardPanel } from '../board/board-panel';
 import { Caution } from '../shared/caution';
 import { ChartFrame } from '../shared/charts/chart-frame';
@@ -26,7 +27,7 @@ import { ReserveDesignPicker } from './reserve-design-picker';
 /** Drafts a proposal from a run (route proposals/new?run=ID) or shows, edits and submits one (proposals/:id). */
 @Component({
   selector: 'bm-proposal-page',
-  imports: [Caution, FormsModule, RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, ChartFrame, BifurcationChart, BoardPanel, ReserveDesignPicker, ProposalReserveDesign],
+  imports: [Caution, FormsModule, RouterLink, ModelNamePipe, DatePipe, DecimalPipe, PercentPipe, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, ChartFrame, BifurcationChart, CatchPlaneChart, BoardPanel, ReserveDesignPicker, ProposalReserveDesign],
   templateUrl: './proposal-page.html',
   styleUrl: './proposal-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -44,8 +45,11 @@ export class ProposalPage {
   protected readonly busy = signal(false);
   protected readonly fields = signal<Record<string, string[]>>({});
   protected quota = 0;
+  protected predatorQuota = 0;
   protected rationale = '';
-  protected readonly results = computed(() => this.runDetail()?.results as SurplusRunResults | undefined);
+  protected readonly results = computed(() => { const r = this.runDetail()?.results; return r?.kind === 'surplus' ? (r as SurplusRunResults) : undefined; });
+  protected readonly linkedResults = computed(() => { const r = this.runDetail()?.results; return r?.kind === 'predator-prey' ? (r as PredatorPreyRunResults) : undefined; });
+  protected readonly plane = signal<CatchPlaneData | null>(null);
   protected readonly editable = computed(() => this.auth.hasRole('assessor') && (this.proposal()?.status ?? 'draft') === 'draft');
   protected readonly chart = signal<BifurcationData | null>(null);
   protected readonly reserveDesign = signal<{ runId: number; index: number } | null>(null);
@@ -62,12 +66,24 @@ export class ProposalPage {
     const detail = await firstValueFrom(this.runs.get(rid));
     this.runDetail.set(detail);
     const r = detail.results as SurplusRunResults;
-    this.quota = p?.quota ?? Math.round(r.quota?.proposal.proposed ?? 0);
+    const lr = this.linkedResults();
+    const last = lr ? lr.years.length - 1 : 0;
+    this.quota = p?.quota ?? (lr ? lr.preyCatch[last]! : Math.round(r.quota?.proposal.proposed ?? 0));
+    this.predatorQuota = p?.predatorQuota ?? (lr ? lr.predatorCatch[last]! : 0);
     this.rationale = p?.rationale ?? '';
     this.redraw();
   }
 
   protected redraw(): void {
+    const lr = this.linkedResults();
+    if (lr?.catchPlane) {
+      const last = lr.years.length - 1;
+      this.plane.set({
+        unit: this.proposal()?.figures.unit ?? 't', preyMax: lr.catchPlane.preyMax, predatorMax: lr.catchPlane.predatorMax, curves: lr.catchPlane.curves,
+        cloud: lr.current?.cloud ?? [], current: { preyCatch: lr.preyCatch[last]!, predatorCatch: lr.predatorCatch[last]! },
+        proposed: { preyCatch: this.quota, predatorCatch: this.predatorQuota },
+      });
+    }
     const r = this.results();
     if (!r) return;
     this.chart.set({
@@ -81,8 +97,8 @@ export class ProposalPage {
     await this.act(async () => {
       const p = this.proposal();
       const saved = p
-        ? await firstValueFrom(this.api.update(p.id, { quota: this.quota, rationale: this.rationale }))
-        : await firstValueFrom(this.api.create(this.runDetail()!.run.id, this.quota, this.rationale, this.reserveDesign()));
+        ? await firstValueFrom(this.api.update(p.id, { quota: this.quota, rationale: this.rationale, ...this.pairPatch() }))
+        : await firstValueFrom(this.api.create(this.runDetail()!.run.id, this.quota, this.rationale, this.reserveDesign(), this.linkedResults() ? this.predatorQuota : undefined));
       this.proposal.set(saved);
       this.notifier.info('Draft saved; the figures were recomputed for this quota.');
       if (!p) void this.router.navigate(['/proposals', saved.id], { replaceUrl: true });
@@ -92,10 +108,16 @@ export class ProposalPage {
   protected async submit(): Promise<void> {
     await this.act(async () => {
       const p = this.proposal()!;
-      if (p.quota !== this.quota || p.rationale !== this.rationale) await firstValueFrom(this.api.update(p.id, { quota: this.quota, rationale: this.rationale }));
+      if (p.quota !== this.quota || p.rationale !== this.rationale || (this.linkedResults() && p.predatorQuota !== this.predatorQuota)) {
+        await firstValueFrom(this.api.update(p.id, { quota: this.quota, rationale: this.rationale, ...this.pairPatch() }));
+      }
       this.proposal.set(await firstValueFrom(this.api.submit(p.id)));
       this.notifier.info('Submitted to the quota board. The proposal is now frozen.');
     });
+  }
+
+  private pairPatch(): { predatorQuota?: number } {
+    return this.linkedResults() ? { predatorQuota: this.predatorQuota } : {};
   }
 
   protected async revise(): Promise<void> {
