@@ -12,7 +12,7 @@ import { queueDigests } from '../../api/mail/digest';
 import { OutboxMail } from '../../api/mail/outbox.model';
 import { User } from '../../api/users/user.model';
 import { submittedProposal } from './support/decided';
-import { received, recipients } from './support/mailbox';
+import { mailboxMark, received, recipients } from './support/mailbox';
 import { signIn, testApp, testConfig, type SignedIn } from './support/test-app';
 
 const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
@@ -43,9 +43,10 @@ describe('quota board, decisions and advisories', () => {
     who.agent.post(`/api/proposals/${id}/board/decision`).set('x-csrf-token', who.csrf).send({ reason: 'The board weighed the margin to the fold.', ...body });
 
   it('e-mails every board member, and only them, when a proposal is submitted', async () => {
+    const mark = await mailboxMark();
     const { proposalId } = await submittedProposal(assessor, 'silver-smelt');
     await app.locals.mail.flush();
-    const mails = (await received()).filter((m) => m.subject?.includes(`#${proposalId} `));
+    const mails = (await received(mark)).filter((m) => m.subject?.includes(`#${proposalId} `));
     expect(mails.flatMap(recipients).sort()).toEqual(['ana.lusk@corran-firth.example', 'maren.holt@corran-firth.example', 'odhran.pike@corran-firth.example']);
     // each carries a link that opens the proposal
     for (const m of mails) expect(m.text).toContain(`${testConfig().PUBLIC_URL}/proposals/${proposalId}`);
@@ -146,8 +147,10 @@ describe('quota board, decisions and advisories', () => {
     let correctionsOnly: User;
     let digestReader: User;
     let stockOfAdvisory: number;
+    let mark: ReadonlySet<string>;
 
     beforeAll(async () => {
+      mark = await mailboxMark();
       const keeper = (await User.findOne({ where: { email: 'keeper@moorfell-estate.example' } }))!;
       moorfellSub = await Subscription.create({ userId: keeper.id, regionId: keeper.regionId!, plan: 'yearly', stripeCustomerId: 'cus_test', stripeCheckoutId: `cs_test_${Date.now()}`, stripeSubscriptionId: null, status: 'active', currentPeriodEnd: new Date(Date.now() + 30 * 86_400_000) });
       // two more Moorfell licensees who chose less mail: corrections only, and the weekly digest
@@ -193,7 +196,7 @@ describe('quota board, decisions and advisories', () => {
     });
 
     it('goes by e-mail, with the PDF, to the region\'s active subscribers only', async () => {
-      const mails = (await received()).filter((m) => m.attachments.some((x) => x.contentType === 'application/pdf') && m.text?.includes(`${limit.toLocaleString('en-GB')} birds`));
+      const mails = (await received(mark)).filter((m) => m.attachments.some((x) => x.contentType === 'application/pdf') && m.text?.includes(`${limit.toLocaleString('en-GB')} birds`));
       expect(expectedRecipients).toContain('keeper@moorfell-estate.example');
       expect(mails.flatMap(recipients).sort()).toEqual(expectedRecipients);
       expect(mails.flatMap(recipients)).not.toContain('office@inner-firth-potters.example');

@@ -1,3 +1,4 @@
+import { UniqueConstraintError } from 'sequelize';
 import { MailSender } from '../../api/mail/mail-sender';
 import { OutboxMail } from '../../api/mail/outbox.model';
 import { received } from './support/mailbox';
@@ -30,7 +31,11 @@ describe('mail outbox', () => {
     await testApp();
     const row = { dedupeKey: `dup:${Date.now()}`, toAddress: 'x@corran-firth.example', subject: 's', body: 'b', advisoryId: null, lastError: null, messageId: null, nextAttemptAt: new Date(), sentAt: null };
     await OutboxMail.create(row);
-    await expectAsync(OutboxMail.create(row)).toBeRejected();
+    // the unique key on dedupe_key, not any other failure (a missing column or a lost connection)
+    const err = await OutboxMail.create({ ...row, subject: 'another subject' }).then(() => null, (e: unknown) => e);
+    expect(err).toBeInstanceOf(UniqueConstraintError);
+    expect(Object.keys((err as UniqueConstraintError).fields)).toEqual(['dedupe_key']);
+    expect(await OutboxMail.count({ where: { dedupeKey: row.dedupeKey } })).toBe(1);
   });
 
   it('shows the administrator the outbox and what the mail server received, and nobody else', async () => {
