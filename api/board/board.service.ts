@@ -74,7 +74,7 @@ export class BoardService {
       const limit = body.outcome === 'approved' ? body.limit ?? proposal.quota : null;
       const lower = proposal.figures.foldHarvest.lower5;
       if (limit !== null && limit > lower && !body.override) {
-        throw new HttpError(422, 'OVERRIDE_REQUIRED', `A limit of ${Math.round(limit)} is above the lower 5% of the fold harvest (${Math.round(lower)}): approving it needs an explicit override.`, { override: ['required above the fold\'s lower bound'] });
+        throw new HttpError(422, 'OVERRIDE_REQUIRED', `A limit of ${limit} is above the lower 5% of the fold harvest (${Number(lower.toFixed(2))}): approving it needs an explicit override.`, { override: ['required above the fold\'s lower bound'] });
       }
       const decision = await Decision.create({
         proposalId, outcome: body.outcome, approvedLimit: limit, reason: body.reason, override: limit !== null && limit > lower,

@@ -19,6 +19,7 @@ import { CatchPlaneChart, type CatchPlaneData } from '../shared/charts/catch-pla
 import { BoardPanel } from '../board/board-panel';
 import { Caution } from '../shared/caution';
 import { ChartFrame } from '../shared/charts/chart-frame';
+import { proposalStart } from '../shared/format';
 import { ModelNamePipe } from '../shared/sig.pipe';
 import { ProposalApi } from './proposal-api';
 import { ProposalReserveDesign } from './proposal-reserve-design';
@@ -68,7 +69,7 @@ export class ProposalPage {
     const r = detail.results as SurplusRunResults;
     const lr = this.linkedResults();
     const last = lr ? lr.years.length - 1 : 0;
-    this.quota = p?.quota ?? (lr ? lr.preyCatch[last]! : Math.round(r.quota?.proposal.proposed ?? 0));
+    this.quota = p?.quota ?? (lr ? lr.preyCatch[last]! : proposalStart(r.quota?.proposal.proposed, r.quota?.proposal.control));
     this.predatorQuota = p?.predatorQuota ?? (lr ? lr.predatorCatch[last]! : 0);
     this.rationale = p?.rationale ?? '';
     this.redraw();

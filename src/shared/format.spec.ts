@@ -1,4 +1,4 @@
-import { modelName, sig } from './format';
+import { modelName, proposalStart, sig } from './format';
 
 describe('display formats', () => {
   it('rounds to four significant figures with separators', () => {
@@ -11,5 +11,13 @@ describe('display formats', () => {
   it('names models as published', () => {
     expect(modelName('pella-tomlinson')).toBe('Pella-Tomlinson');
     expect(modelName('rosenzweig-macarthur')).toBe('Rosenzweig-MacArthur');
+  });
+
+  it('starts a proposal below its bound, never above it', () => {
+    // 2,346.6 is a fold-risk bound: rounding to 2,347 would need the board's override.
+    expect(proposalStart(2346.6)).toBe(2346);
+    expect(proposalStart(2347)).toBe(2347);
+    expect(proposalStart(0.2389, 'F')).toBe(0.238);
+    expect(proposalStart(Number.NaN)).toBe(0);
   });
 });

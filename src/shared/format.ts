@@ -20,3 +20,13 @@ const MODEL_NAMES: Record<string, string> = {
 export function modelName(code: string): string {
   return MODEL_NAMES[code] ?? code;
 }
+
+/**
+ * The engine's proposed level as the value a person starts from: a catch in whole units, an F to
+ * three decimals, always rounded down, because rounding up can carry a level past its risk bound.
+ */
+export function proposalStart(proposed: number | null | undefined, control: 'catch' | 'F' = 'catch'): number {
+  if (proposed === null || proposed === undefined || !Number.isFinite(proposed) || proposed <= 0) return 0;
+  const step = control === 'F' ? 1000 : 1;
+  return Math.floor(proposed * step + 1e-9) / step;
+}

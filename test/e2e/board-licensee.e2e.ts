@@ -22,7 +22,7 @@ async function submitGrouseProposal(base: string): Promise<number> {
     if (r.run.status === 'succeeded') results = r.results;
     else await new Promise((res) => setTimeout(res, 100));
   }
-  const p = (await agent.post('/api/proposals').set('x-csrf-token', csrf).send({ runId: run.id, quota: Math.round(results!.quota.proposal.proposed), rationale: 'Spring counts are steady; quota at the 5% fold-risk quantile.' })).body.proposal;
+  const p = (await agent.post('/api/proposals').set('x-csrf-token', csrf).send({ runId: run.id, quota: Math.floor(results!.quota.proposal.proposed), rationale: 'Spring counts are steady; quota at the 5% fold-risk quantile.' })).body.proposal;
   await agent.post(`/api/proposals/${p.id}/submit`).set('x-csrf-token', csrf).expect(200);
   return p.id;
 }
